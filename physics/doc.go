@@ -1,0 +1,22 @@
+// Package physics is the pure maths of Propflight: parts -> mass properties ->
+// verdict, and throw -> take.
+//
+// Frames and units:
+//   - SI inside: metres, kilograms, seconds, radians. Degrees appear only at the
+//     edges (project files, the screen), never in this package's API.
+//   - World: right-handed, +Y up, metres (the glTF 2.0 convention). The ground
+//     is the plane y = Throw.GroundY.
+//   - Prop frame: the frame the parts are authored in. A Part's Position is its
+//     own centre of mass in the prop frame and its Orient turns the part's own
+//     axes into the prop frame.
+//   - Principal frame: the prop's principal axes at its centre of mass, sorted
+//     so that I1 <= I2 <= I3 (least, middle, greatest axis).
+//   - Orientation quaternions (gonum quat.Number, fields Real, Imag, Jmag, Kmag
+//     = w, x, y, z) are unit quaternions that map a vector of the inner frame
+//     into the outer one: v_outer = q (0, v_inner) q*.
+//
+// Inertia tensors use the physics sign convention I_ij = sum m (r^2 delta_ij -
+// x_i x_j) (Goldstein, Classical Mechanics 3rd ed., §5.3).
+//
+// The package imports no other Propflight package and no UI code.
+package physics
