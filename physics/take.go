@@ -123,15 +123,15 @@ func Simulate(p *Prop, mp *MassProps, th *Throw) (*Take, error) {
 		take.Frames = append(take.Frames, fr)
 	}
 	appendFrame(0, 0, s)
+	// Every substep has the same size h, so each step's stages start the
+	// next; frame k is reached after k n steps (k n h = k dt up to round-off).
+	st := stepper{rot: &f.rot, h: h}
 	for k := 0; k < maxFrames; k++ {
 		t0 := th.FPS.Time(k)
 		for j := range n {
 			ta := t0 + float64(j)*h
 			tb := t0 + float64(j+1)*h
-			if j == n-1 {
-				tb = th.FPS.Time(k + 1)
-			}
-			next := f.rot.step(s, tb-ta)
+			next := st.next(s)
 			if f.clearance(tb, next) <= 0 {
 				tl := f.landingTime(ta, s, tb)
 				take.FlightTime = tl
