@@ -1,0 +1,29 @@
+# Propflight. `make run` installs what is missing, builds and starts the
+# program on the embedded demo; `make test` runs every test.
+GO ?= go
+BIN := propflight
+
+.PHONY: run test build deps bench fuzz clean
+
+deps:
+	@./scripts/install-deps.sh
+
+build: deps
+	$(GO) build -o $(BIN) ./cmd/propflight
+
+run: build
+	./$(BIN) check
+
+test: deps
+	$(GO) vet ./...
+	$(GO) test ./...
+
+bench:
+	$(GO) test -run XXX -bench . -benchmem ./...
+
+fuzz:
+	$(GO) test -run XXX -fuzz FuzzParse -fuzztime 60s ./app/project
+	$(GO) test -run XXX -fuzz FuzzParse -fuzztime 30s ./app/cli
+
+clean:
+	rm -f $(BIN)
