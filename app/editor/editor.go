@@ -1,0 +1,205 @@
+package editor
+
+import (
+	"bytes"
+	"errors"
+	"os"
+
+	"propflight/app/project"
+)
+
+// MaxUndo is how many edits Undo can take back.
+const MaxUndo = 200
+
+// snapshot is one state of the document as its saved bytes, which makes a
+// deep copy that can never share memory with the live document.
+type snapshot struct {
+	label string // what the edit that left this state did, for the menu
+	key   string // merge key of the edit that left this state ("" = never merge)
+	data  []byte
+}
+
+// Editor holds the open project. It is not safe for concurrent use: the
+// UI goroutine owns it.
+type Editor struct {
+	doc   *project.Document
+	path  string // "" until saved or opened
+	saved []byte // bytes of the last saved or opened state
+	undo  []snapshot
+	redo  []snapshot
+	open  string // merge key of the edit in progress, "" when none
+}
+
+// New returns an editor on doc, which came from path ("" for a new or
+// demo project that has never been saved).
+func New(doc *project.Document, path string) (*Editor, error) {
+	data, err := project.Marshal(doc)
+	if err != nil {
+		return nil, err
+	}
+	e := &Editor{doc: mustClone(data, doc.File), path: path}
+	if path != "" {
+		e.saved = data
+	}
+	return e, nil
+}
+
+// Doc returns a copy of the current document, safe to keep or hand to
+// another goroutine.
+func (e *Editor) Doc() *project.Document {
+	data, err := project.Marshal(e.doc)
+	if err != nil {
+		return e.doc
+	}
+	return mustClone(data, e.doc.File)
+}
+
+// Path returns the file the project was last opened from or saved to.
+func (e *Editor) Path() string { return e.path }
+
+// Dirty reports whether the project has changes not saved to Path.
+func (e *Editor) Dirty() bool {
+	data, err := project.Marshal(e.doc)
+	return err != nil || e.saved == nil || !bytes.Equal(data, e.saved)
+}
+
+// Apply changes the document with edit, recording the previous state for
+// Undo under label (such as "Change radius"). Edits with the same non-empty
+// merge key in a row (the ticks of one slider drag) make one undo step;
+// call EndMerge when the gesture ends. If edit returns an error the
+// document is left as it was.
+func (e *Editor) Apply(label, key string, edit func(d *project.Document) error) error {
+	before, err := project.Marshal(e.doc)
+	if err != nil {
+		return err
+	}
+	work := mustClone(before, e.doc.File)
+	if err := edit(work); err != nil {
+		return err
+	}
+	after, err := project.Marshal(work)
+	if err != nil {
+		return err
+	}
+	if bytes.Equal(before, after) {
+		return nil
+	}
+	if key == "" || key != e.open || len(e.undo) == 0 {
+		e.undo = append(e.undo, snapshot{label: label, key: key, data: before})
+		if len(e.undo) > MaxUndo {
+			e.undo = e.undo[len(e.undo)-MaxUndo:]
+		}
+	}
+	e.open = key
+	e.redo = nil
+	e.doc = work
+	return nil
+}
+
+// EndMerge closes the current merge group, so the next edit is its own
+// undo step even with the same key.
+func (e *Editor) EndMerge() { e.open = "" }
+
+// CanUndo and CanRedo report whether there is a step to take.
+func (e *Editor) CanUndo() bool { return len(e.undo) > 0 }
+func (e *Editor) CanRedo() bool { return len(e.redo) > 0 }
+
+// UndoLabel and RedoLabel name the step Undo or Redo would take ("" if none).
+func (e *Editor) UndoLabel() string {
+	if len(e.undo) == 0 {
+		return ""
+	}
+	return e.undo[len(e.undo)-1].label
+}
+
+func (e *Editor) RedoLabel() string {
+	if len(e.redo) == 0 {
+		return ""
+	}
+	return e.redo[len(e.redo)-1].label
+}
+
+// Undo restores the state before the last edit; it reports whether there
+// was one.
+func (e *Editor) Undo() bool {
+	if len(e.undo) == 0 {
+		return false
+	}
+	s := e.undo[len(e.undo)-1]
+	e.undo = e.undo[:len(e.undo)-1]
+	cur, _ := project.Marshal(e.doc)
+	e.redo = append(e.redo, snapshot{label: s.label, data: cur})
+	e.doc = mustClone(s.data, e.doc.File)
+	e.open = ""
+	return true
+}
+
+// Redo takes back the last Undo.
+func (e *Editor) Redo() bool {
+	if len(e.redo) == 0 {
+		return false
+	}
+	s := e.redo[len(e.redo)-1]
+	e.redo = e.redo[:len(e.redo)-1]
+	cur, _ := project.Marshal(e.doc)
+	e.undo = append(e.undo, snapshot{label: s.label, data: cur})
+	e.doc = mustClone(s.data, e.doc.File)
+	e.open = ""
+	return true
+}
+
+// Save writes the project to path atomically (a temporary file, then a
+// rename), and makes path the project's file. On error nothing changes.
+func (e *Editor) Save(path string) error {
+	if path == "" {
+		return errors.New("save: no file name")
+	}
+	doc := e.Doc()
+	doc.File = path
+	if err := project.Save(path, doc); err != nil {
+		return err
+	}
+	data, _ := project.Marshal(doc)
+	e.saved, e.path, e.doc.File = data, path, path
+	return nil
+}
+
+// Open reads a project from path and makes it the current one with a fresh
+// history. On any error (unreadable, bad JSON, a bad field) the current
+// project is kept untouched and the error names the file and field.
+func (e *Editor) Open(path string) error {
+	doc, err := project.Load(path)
+	if err != nil {
+		return err
+	}
+	if _, err := doc.Build(); err != nil {
+		return err
+	}
+	return e.Replace(doc, path)
+}
+
+// Replace makes doc the current project (from path, "" if never saved),
+// clearing the history.
+func (e *Editor) Replace(doc *project.Document, path string) error {
+	ne, err := New(doc, path)
+	if err != nil {
+		return err
+	}
+	*e = *ne
+	return nil
+}
+
+// mustClone parses bytes that Marshal produced; failure is our own bug.
+func mustClone(data []byte, file string) *project.Document {
+	d, err := project.Parse(file, data)
+	if err != nil {
+		panic("editor: the project's own bytes do not parse: " + err.Error())
+	}
+	return d
+}
+
+// exists reports whether a file is there (for recent files).
+func exists(path string) bool {
+	_, err := os.Stat(path)
+	return err == nil
+}

@@ -1,0 +1,91 @@
+package editor
+
+import (
+	"encoding/json"
+	"io"
+	"os"
+	"path/filepath"
+	"slices"
+
+	"propflight/app/fsutil"
+)
+
+// MaxRecent is how many recent files the list keeps.
+const MaxRecent = 8
+
+// Recent is the list of recently opened or saved project files, newest
+// first, kept in a small JSON file (see DefaultRecentPath).
+type Recent struct {
+	path  string
+	Files []string `json:"files"`
+}
+
+// DefaultRecentPath is where the window keeps its list:
+// <user config dir>/propflight/recent.json.
+func DefaultRecentPath() (string, error) {
+	dir, err := os.UserConfigDir()
+	if err != nil {
+		return "", err
+	}
+	return filepath.Join(dir, "propflight", "recent.json"), nil
+}
+
+// LoadRecent reads the list at path. A missing or unreadable list is an
+// empty one: recent files are a convenience, never a reason to fail.
+func LoadRecent(path string) *Recent {
+	r := &Recent{path: path}
+	data, err := os.ReadFile(path)
+	if err != nil {
+		return r
+	}
+	var f struct {
+		Files []string `json:"files"`
+	}
+	if json.Unmarshal(data, &f) == nil {
+		for _, p := range f.Files {
+			if p != "" && len(r.Files) < MaxRecent && !slices.Contains(r.Files, p) {
+				r.Files = append(r.Files, p)
+			}
+		}
+	}
+	return r
+}
+
+// Existing returns the files of the list that still exist.
+func (r *Recent) Existing() []string {
+	var out []string
+	for _, p := range r.Files {
+		if exists(p) {
+			out = append(out, p)
+		}
+	}
+	return out
+}
+
+// Add puts file at the head of the list (as an absolute path) and saves the
+// list atomically.
+func (r *Recent) Add(file string) error {
+	if abs, err := filepath.Abs(file); err == nil {
+		file = abs
+	}
+	files := []string{file}
+	for _, p := range r.Files {
+		if p != file && len(files) < MaxRecent {
+			files = append(files, p)
+		}
+	}
+	r.Files = files
+	if r.path == "" {
+		return nil
+	}
+	if err := os.MkdirAll(filepath.Dir(r.path), 0o755); err != nil {
+		return err
+	}
+	return fsutil.WriteAtomic(r.path, func(w io.Writer) error {
+		enc := json.NewEncoder(w)
+		enc.SetIndent("", "  ")
+		return enc.Encode(struct {
+			Files []string `json:"files"`
+		}{r.Files})
+	})
+}
