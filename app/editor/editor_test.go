@@ -1,0 +1,225 @@
+package editor
+
+import (
+	"os"
+	"path/filepath"
+	"strings"
+	"sync"
+	"testing"
+	"time"
+
+	"propflight/app/project"
+	"propflight/assets"
+	"propflight/physics"
+)
+
+func demoDoc(t *testing.T) *project.Document {
+	t.Helper()
+	data, err := assets.Preset(assets.Demo)
+	if err != nil {
+		t.Fatal(err)
+	}
+	d, err := project.Parse(assets.Demo+".json", data)
+	if err != nil {
+		t.Fatal(err)
+	}
+	return d
+}
+
+func setRadius(r float64) func(d *project.Document) error {
+	return func(d *project.Document) error {
+		for i := range d.Prop.Parts {
+			if d.Prop.Parts[i].Radius != nil {
+				d.Prop.Parts[i].Radius = &r
+				return nil
+			}
+		}
+		return nil
+	}
+}
+
+func radius(d *project.Document) float64 {
+	for _, p := range d.Prop.Parts {
+		if p.Radius != nil {
+			return *p.Radius
+		}
+	}
+	return 0
+}
+
+func TestEditor_UndoRedo(t *testing.T) {
+	e, err := New(demoDoc(t), "")
+	if err != nil {
+		t.Fatal(err)
+	}
+	r0 := radius(e.Doc())
+	if err := e.Apply("Change radius", "", setRadius(0.2)); err != nil {
+		t.Fatal(err)
+	}
+	if radius(e.Doc()) != 0.2 || !e.CanUndo() || e.UndoLabel() != "Change radius" {
+		t.Fatalf("after edit: radius %g, undo %v %q", radius(e.Doc()), e.CanUndo(), e.UndoLabel())
+	}
+	if !e.Undo() || radius(e.Doc()) != r0 {
+		t.Fatalf("undo: radius %g, want %g", radius(e.Doc()), r0)
+	}
+	if !e.CanRedo() || !e.Redo() || radius(e.Doc()) != 0.2 {
+		t.Fatalf("redo: radius %g", radius(e.Doc()))
+	}
+	// A new edit clears the redo stack.
+	e.Undo()
+	_ = e.Apply("Change radius", "", setRadius(0.3))
+	if e.CanRedo() {
+		t.Error("redo survived a new edit")
+	}
+	// The copy from Doc is independent of the editor.
+	d := e.Doc()
+	*d.Prop.Parts[0].Radius = 9
+	if radius(e.Doc()) == 9 {
+		t.Error("Doc returned shared memory")
+	}
+}
+
+// TestEditor_MergeDrag: the ticks of one slider drag are one undo step.
+func TestEditor_MergeDrag(t *testing.T) {
+	e, _ := New(demoDoc(t), "")
+	r0 := radius(e.Doc())
+	for _, r := range []float64{0.11, 0.12, 0.13, 0.14} {
+		_ = e.Apply("Change radius", "radius", setRadius(r))
+	}
+	e.EndMerge()
+	_ = e.Apply("Change radius", "radius", setRadius(0.2))
+	e.Undo()
+	if got := radius(e.Doc()); got != 0.14 {
+		t.Fatalf("undo of second drag: %g, want 0.14", got)
+	}
+	e.Undo()
+	if got := radius(e.Doc()); got != r0 {
+		t.Fatalf("undo of first drag: %g, want %g", got, r0)
+	}
+	if e.CanUndo() {
+		t.Error("more undo steps than drags")
+	}
+}
+
+func TestEditor_FailedEditChangesNothing(t *testing.T) {
+	e, _ := New(demoDoc(t), "")
+	before := e.Doc()
+	err := e.Apply("Break", "", func(d *project.Document) error {
+		r := 5.0
+		d.Prop.Parts[0].Radius = &r
+		return os.ErrInvalid
+	})
+	if err == nil || e.CanUndo() || radius(e.Doc()) != radius(before) {
+		t.Errorf("failed edit left a trace: err %v, undo %v", err, e.CanUndo())
+	}
+}
+
+func TestEditor_DirtySaveOpen(t *testing.T) {
+	dir := t.TempDir()
+	e, _ := New(demoDoc(t), "")
+	if !e.Dirty() {
+		t.Error("a never-saved project should count as unsaved")
+	}
+	path := filepath.Join(dir, "pan.json")
+	if err := e.Save(path); err != nil {
+		t.Fatal(err)
+	}
+	if e.Dirty() || e.Path() != path {
+		t.Errorf("after save: dirty %v, path %q", e.Dirty(), e.Path())
+	}
+	_ = e.Apply("Change radius", "", setRadius(0.2))
+	if !e.Dirty() {
+		t.Error("edit not dirty")
+	}
+	e.Undo()
+	if e.Dirty() {
+		t.Error("undo back to the saved state should be clean")
+	}
+	// A bad file keeps the current project.
+	bad := filepath.Join(dir, "bad.json")
+	os.WriteFile(bad, []byte(`{"format": "propflight/v1", "prop": {"parts": [{"shape": "box", "size": [1, -1, 1], "mass": 1}]}}`), 0o644)
+	_ = e.Apply("Change radius", "", setRadius(0.25))
+	err := e.Open(bad)
+	if err == nil || !strings.Contains(err.Error(), "bad.json") || !strings.Contains(err.Error(), "size") {
+		t.Fatalf("open bad file: %v", err)
+	}
+	if radius(e.Doc()) != 0.25 || !e.CanUndo() {
+		t.Error("a failed open changed the current project")
+	}
+	if err := e.Open(path); err != nil || e.Dirty() || e.CanUndo() {
+		t.Errorf("open good file: %v, dirty %v, undo %v", err, e.Dirty(), e.CanUndo())
+	}
+}
+
+// TestWorker_LatestWins: of a burst of requests the last one's result is
+// always delivered, results arrive in increasing order, and none is older
+// than one already delivered.
+func TestWorker_LatestWins(t *testing.T) {
+	var mu sync.Mutex
+	var got []uint64
+	done := make(chan Result, 64)
+	w := NewWorker(func(r Result) {
+		mu.Lock()
+		got = append(got, r.Seq)
+		mu.Unlock()
+		done <- r
+	})
+	defer w.Close()
+	doc := demoDoc(t)
+	var last uint64
+	for i := range 20 {
+		d := *doc
+		_ = i
+		last = w.Request(&d, physics.DefaultThresholds())
+	}
+	deadline := time.After(30 * time.Second)
+	for {
+		select {
+		case r := <-done:
+			if r.Err != nil {
+				t.Fatal(r.Err)
+			}
+			if r.Seq == last {
+				mu.Lock()
+				defer mu.Unlock()
+				for i := 1; i < len(got); i++ {
+					if got[i] <= got[i-1] {
+						t.Fatalf("results out of order: %v", got)
+					}
+				}
+				if r.Take == nil || r.Verdict.Motion != physics.Tumbling {
+					t.Errorf("demo result: take %v, motion %v", r.Take != nil, r.Verdict.Motion)
+				}
+				return
+			}
+		case <-deadline:
+			t.Fatalf("latest result never delivered; got %v", got)
+		}
+	}
+}
+
+func TestRecent(t *testing.T) {
+	dir := t.TempDir()
+	path := filepath.Join(dir, "cfg", "recent.json")
+	r := LoadRecent(path)
+	for i := range MaxRecent + 3 {
+		f := filepath.Join(dir, "p"+string(rune('a'+i))+".json")
+		os.WriteFile(f, []byte("{}"), 0o644)
+		if err := r.Add(f); err != nil {
+			t.Fatal(err)
+		}
+	}
+	again := LoadRecent(path)
+	if len(again.Files) != MaxRecent || !strings.HasSuffix(again.Files[0], "pk.json") {
+		t.Fatalf("recent = %v", again.Files)
+	}
+	os.Remove(again.Files[1])
+	if n := len(again.Existing()); n != MaxRecent-1 {
+		t.Errorf("existing = %d", n)
+	}
+	// A corrupt list is an empty one, never an error.
+	os.WriteFile(path, []byte("{not json"), 0o644)
+	if r := LoadRecent(path); len(r.Files) != 0 {
+		t.Errorf("corrupt list gave %v", r.Files)
+	}
+}
