@@ -224,8 +224,9 @@ func firstFlip(I [3]float64, l r3.Vec, halfPeriod float64) (float64, bool) {
 		// Starting on the crossing itself: take the sign just after it.
 		sign = math.Copysign(1, rot.step(s, h).L.Y)
 	}
+	st := stepper{rot: &rot, h: h}
 	for i := range n {
-		next := rot.step(s, h)
+		next := st.next(s)
 		if next.L.Y*sign < 0 {
 			ta := float64(i) * h
 			g := func(t float64) float64 { return rot.step(s, t).L.Y * sign }
