@@ -1,0 +1,6 @@
+// Package assets embeds the files Propflight ships inside its binary: the
+// demo presets, project files (format "propflight/v1") of the props of our
+// own slapstick kitchen scene: a frying pan, a rolling pin, a dinner plate,
+// a cutting board and a loaf. Their sizes and masses are invented demo
+// data, plausible for kitchen objects but never check values.
+package assets
