@@ -1,0 +1,236 @@
+package cli
+
+import (
+	"bufio"
+	"errors"
+	"fmt"
+	"io"
+	"runtime"
+	"runtime/debug"
+	"strings"
+
+	"propflight/app/project"
+	"propflight/assets"
+	"propflight/physics"
+)
+
+// Version is the program version "propflight version" prints; release
+// builds set it with -ldflags "-X propflight/app/cli.Version=...".
+var Version = "0.1.0-dev"
+
+// Exit statuses of Run.
+const (
+	ExitOK      = 0
+	ExitFailure = 1 // anything that is not the user's input: I/O, internal errors
+	ExitInput   = 2 // bad input or usage
+)
+
+// Safety is the caution every human-readable report ends with.
+const Safety = "Planning and animation aid only: ignores air drag and contact; any live throw follows local safety rules and a qualified stunt or safety coordinator."
+
+// Run runs the command line args (without the program name), writing
+// results to stdout and errors, one line each, to stderr, and returns the
+// exit status. With no arguments it calls openWindow, or when that is nil
+// checks the embedded demo. A panic anywhere below is caught and reported
+// as one line with status 1.
+func Run(args []string, stdout, stderr io.Writer, openWindow func() error) (code int) {
+	defer func() {
+		if r := recover(); r != nil {
+			fmt.Fprintf(stderr, "propflight: internal error: %s\n", oneLine(fmt.Sprint(r)))
+			code = ExitFailure
+		}
+	}()
+	cmd, err := Parse(args)
+	if err != nil {
+		return fail(stderr, err)
+	}
+	if cmd.Name == "" {
+		if openWindow != nil {
+			if err := openWindow(); err != nil {
+				return fail(stderr, err)
+			}
+			return ExitOK
+		}
+		cmd = Command{Name: "check"}
+	}
+	// Commands write into a buffer first so that a failure half-way leaves
+	// stdout empty.
+	var out strings.Builder
+	switch cmd.Name {
+	case "help":
+		out.WriteString(usage)
+	case "version":
+		fmt.Fprintf(&out, "propflight %s (%s %s/%s%s)\n", Version, runtime.Version(), runtime.GOOS, runtime.GOARCH, revision())
+	case "presets":
+		err = listPresets(&out)
+	case "check":
+		err = runCheck(&out, cmd)
+	case "export":
+		err = runExport(&out, cmd)
+	case "sheet":
+		err = usagef("sheet: the timing sheet is not available yet")
+	default:
+		err = fmt.Errorf("command %q has no handler", cmd.Name) // a bug in Parse
+	}
+	if err != nil {
+		return fail(stderr, err)
+	}
+	w := bufio.NewWriter(stdout)
+	w.WriteString(out.String())
+	if err := w.Flush(); err != nil {
+		return fail(stderr, fmt.Errorf("writing the output: %w", err))
+	}
+	return ExitOK
+}
+
+// fail prints err as one line and returns its exit status.
+func fail(stderr io.Writer, err error) int {
+	fmt.Fprintf(stderr, "propflight: %s\n", oneLine(err.Error()))
+	return exitCode(err)
+}
+
+// exitCode is 2 for problems with the user's input or command line, 1 for
+// everything else.
+func exitCode(err error) int {
+	var (
+		ue *UsageError
+		pe *project.Error
+		fe *physics.FieldError
+	)
+	if errors.As(err, &ue) || errors.As(err, &pe) || errors.As(err, &fe) || errors.Is(err, physics.ErrNoLanding) {
+		return ExitInput
+	}
+	return ExitFailure
+}
+
+// oneLine keeps a message on one line.
+func oneLine(s string) string {
+	return strings.Join(strings.Fields(strings.NewReplacer("\r", " ", "\n", " ").Replace(s)), " ")
+}
+
+// revision returns ", commit abc1234" when the build recorded one.
+func revision() string {
+	info, ok := debug.ReadBuildInfo()
+	if !ok {
+		return ""
+	}
+	for _, s := range info.Settings {
+		if s.Key == "vcs.revision" && len(s.Value) >= 7 {
+			return ", commit " + s.Value[:7]
+		}
+	}
+	return ""
+}
+
+// source is where a command's project comes from.
+type source struct {
+	label string // file name or "preset NAME", used in messages
+	doc   *project.Document
+}
+
+// load reads the command's project: the file, the preset, or the demo.
+func load(cmd Command) (*source, error) {
+	if cmd.File != "" {
+		doc, err := project.Load(cmd.File)
+		if err != nil {
+			return nil, err
+		}
+		return &source{label: cmd.File, doc: doc}, nil
+	}
+	name := cmd.Preset
+	if name == "" {
+		name = assets.Demo
+	}
+	data, err := assets.Preset(name)
+	if err != nil {
+		return nil, usagef("--preset: %v", err)
+	}
+	label := "preset " + name
+	doc, err := project.Parse(label, data)
+	if err != nil {
+		return nil, err
+	}
+	return &source{label: label, doc: doc}, nil
+}
+
+// flight is a built scene with its verdict and take.
+type flight struct {
+	src     *source
+	scene   *project.Scene
+	verdict physics.Verdict
+	take    *physics.Take
+}
+
+// fly builds the scene, judges it under the default thresholds and
+// simulates the take. Simulation problems name the file.
+func fly(src *source) (*flight, error) {
+	sc, err := src.doc.Build()
+	if err != nil {
+		return nil, err
+	}
+	f := &flight{src: src, scene: sc}
+	f.verdict = physics.Judge(&sc.Mass, &sc.Throw, physics.DefaultThresholds())
+	f.take, err = physics.Simulate(&sc.Prop, &sc.Mass, &sc.Throw)
+	if err != nil {
+		var fe *physics.FieldError
+		switch {
+		case errors.As(err, &fe):
+			return nil, &project.Error{File: src.label, Field: fe.Field, Msg: fe.Msg}
+		case errors.Is(err, physics.ErrNoLanding):
+			return nil, &project.Error{File: src.label, Field: "throw", Msg: strings.TrimPrefix(err.Error(), "throw: ")}
+		}
+		return nil, fmt.Errorf("%s: %w", src.label, err)
+	}
+	return f, nil
+}
+
+func listPresets(w io.Writer) error {
+	names := assets.PresetNames()
+	width := 0
+	for _, n := range names {
+		width = max(width, len(n))
+	}
+	for _, n := range names {
+		data, err := assets.Preset(n)
+		if err != nil {
+			return err
+		}
+		doc, err := project.Parse("preset "+n, data)
+		if err != nil {
+			return err
+		}
+		title := doc.Name
+		if n == assets.Demo {
+			title += " (the demo)"
+		}
+		fmt.Fprintf(w, "%-*s  %s\n", width, n, title)
+	}
+	return nil
+}
+
+const usage = `propflight: plan a thrown prop - its mass properties, whether it will spin,
+tumble or wobble, and its flight frame by frame.
+
+Usage:
+  propflight                          open the window on the demo
+  propflight check [FILE] [--json]    mass properties, verdict and flight timing
+  propflight export FILE --format csv -o OUT
+                                      write the take frame by frame
+  propflight sheet FILE -o OUT.pdf [--paper a4|letter]
+                                      print the timing sheet
+  propflight presets                  list the built-in demo props
+  propflight version                  print the version
+
+Options (before or after FILE):
+  --preset NAME      use a built-in preset instead of FILE (see propflight presets)
+  --json             check: print one JSON object instead of the summary
+  --format FORMAT    export: csv (gltf and png are not available yet);
+                     without it the extension of OUT decides
+  -o, --output OUT   where to write; "-" is standard output
+  --paper PAPER      sheet: a4 or letter
+  -h, --help         show this help
+
+FILE is a project file (format propflight/v1). Without FILE or --preset,
+check uses the demo. Exit status: 0 ok, 2 bad input or usage, 1 other failure.
+
+` + Safety + "\n"
