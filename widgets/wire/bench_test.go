@@ -1,0 +1,98 @@
+package wire_test
+
+import (
+	"image"
+	"testing"
+
+	"propflight/physics"
+	"propflight/widgets/wire"
+)
+
+// throw3s is the benchmark's take: the pan thrown 4.5 m with a 2.9 s hang
+// from 1.4 m, spinning 2 turns a second near its middle axis, which lands
+// at about 3 s (72 frames at 24 fps).
+func throw3s(b *testing.B) (*physics.Prop, physics.MassProps, physics.Throw) {
+	p := fryingPan()
+	mp, err := p.MassProps()
+	if err != nil {
+		b.Fatal(err)
+	}
+	return p, mp, panThrow(&mp, 2.9, 4.5, 2)
+}
+
+// BenchmarkDrawRasterize1280x800 is the preview's whole redraw after an
+// edit: simulate the 3 s throw, draw it with onion skin +-3, arc, ticks,
+// axes and grid, and rasterise into a reused 1280 x 800 image.
+func BenchmarkDrawRasterize1280x800(b *testing.B) {
+	p, mp, th := throw3s(b)
+	cam := wire.NewCamera(wire.Free, 1280, 800)
+	dst := image.NewRGBA(image.Rect(0, 0, 1280, 800))
+	pal := wire.DefaultPalette()
+	var tk *physics.Take
+	for b.Loop() {
+		var err error
+		tk, err = physics.Simulate(p, &mp, &th)
+		if err != nil {
+			b.Fatal(err)
+		}
+		sc := wire.Scene{Prop: p, Mass: &mp, Take: tk, Frame: tk.ApexFrame, OnionBefore: 3, OnionAfter: 3,
+			ShowArc: true, ShowTicks: true, ShowAxes: true, ShowGrid: true}
+		cam.Frame(wire.Bounds(sc))
+		wire.RasterizeInto(dst, wire.Draw(cam, sc), pal)
+	}
+	b.ReportMetric(tk.FlightTime, "flight_s")
+	b.ReportMetric(float64(len(tk.Frames)), "frames")
+}
+
+// The parts of the redraw one by one.
+
+func BenchmarkSimulate3s(b *testing.B) {
+	p, mp, th := throw3s(b)
+	for b.Loop() {
+		if _, err := physics.Simulate(p, &mp, &th); err != nil {
+			b.Fatal(err)
+		}
+	}
+}
+
+func scene3s(b *testing.B) (wire.Camera, wire.Scene) {
+	p, mp, th := throw3s(b)
+	tk, err := physics.Simulate(p, &mp, &th)
+	if err != nil {
+		b.Fatal(err)
+	}
+	sc := wire.Scene{Prop: p, Mass: &mp, Take: tk, Frame: tk.ApexFrame, OnionBefore: 3, OnionAfter: 3,
+		ShowArc: true, ShowTicks: true, ShowAxes: true, ShowGrid: true}
+	cam := wire.NewCamera(wire.Free, 1280, 800)
+	cam.Frame(wire.Bounds(sc))
+	return cam, sc
+}
+
+func BenchmarkDraw1280x800(b *testing.B) {
+	cam, sc := scene3s(b)
+	var n int
+	for b.Loop() {
+		n = len(wire.Draw(cam, sc).Segments)
+	}
+	b.ReportMetric(float64(n), "segments")
+}
+
+func BenchmarkRasterize1280x800(b *testing.B) {
+	cam, sc := scene3s(b)
+	d := wire.Draw(cam, sc)
+	dst := image.NewRGBA(image.Rect(0, 0, 1280, 800))
+	pal := wire.DefaultPalette()
+	for b.Loop() {
+		wire.RasterizeInto(dst, d, pal)
+	}
+}
+
+// BenchmarkPartMesh meshes one part of every shape at the default detail.
+func BenchmarkPartMesh(b *testing.B) {
+	parts := testParts()
+	for b.Loop() {
+		for i := range parts {
+			_ = wire.PartMesh(&parts[i], wire.DefaultDetail)
+		}
+	}
+}
