@@ -1,0 +1,64 @@
+package sheet
+
+import (
+	"strconv"
+
+	"github.com/go-pdf/fpdf"
+)
+
+// rgb is a colour of the sheet's own print palette.
+type rgb struct{ r, g, b int }
+
+// The sheet's colours: dark ink for text, a softer grey for secondary
+// text, light rules, and pale fills that mark keys and breakdowns in the
+// table and photocopy as light greys.
+var (
+	inkText      = rgb{28, 30, 36}
+	inkSoft      = rgb{92, 98, 110}
+	inkRule      = rgb{176, 182, 192}
+	inkFaint     = rgb{222, 226, 232}
+	inkArc       = rgb{18, 112, 138}
+	inkGround    = rgb{120, 110, 96}
+	inkMark      = rgb{176, 72, 24}
+	fillPanel    = rgb{243, 245, 248}
+	fillHead     = rgb{229, 233, 239}
+	fillKey      = rgb{250, 232, 196}
+	fillBreak    = rgb{222, 236, 246}
+	fillGroundBg = rgb{246, 243, 238}
+)
+
+func ink(p *fpdf.Fpdf, c rgb)  { p.SetTextColor(c.r, c.g, c.b) }
+func pen(p *fpdf.Fpdf, c rgb)  { p.SetDrawColor(c.r, c.g, c.b) }
+func fill(p *fpdf.Fpdf, c rgb) { p.SetFillColor(c.r, c.g, c.b) }
+
+// rule draws a line of width w mm in colour c.
+func rule(p *fpdf.Fpdf, x0, y0, x1, y1, w float64, c rgb) {
+	p.SetLineWidth(w)
+	pen(p, c)
+	p.Line(x0, y0, x1, y1)
+}
+
+// box fills a rectangle with colour c.
+func box(p *fpdf.Fpdf, x, y, w, h float64, c rgb) {
+	fill(p, c)
+	p.Rect(x, y, w, h, "F")
+}
+
+func itoa(n int) string { return strconv.Itoa(n) }
+
+// fitText returns s shortened with "…" so that it is at most w mm wide in
+// the current font.
+func fitText(p *fpdf.Fpdf, s string, w float64) string {
+	if p.GetStringWidth(s) <= w {
+		return s
+	}
+	r := []rune(s)
+	for len(r) > 0 {
+		r = r[:len(r)-1]
+		t := string(r) + "…"
+		if p.GetStringWidth(t) <= w {
+			return t
+		}
+	}
+	return ""
+}
