@@ -1,0 +1,276 @@
+package ui
+
+import (
+	"errors"
+	"fmt"
+	"os"
+	"path/filepath"
+	"strings"
+
+	"fyne.io/fyne/v2"
+	"fyne.io/fyne/v2/dialog"
+	"fyne.io/fyne/v2/storage"
+	"fyne.io/fyne/v2/widget"
+
+	"propflight/app/project"
+)
+
+// newProject starts an untitled project: one book-sized box (see
+// emptyDocument), asking first about unsaved changes.
+func (w *Window) newProject() {
+	w.confirmDiscard("Start a new project", func() {
+		w.replace(emptyDocument(), "", "")
+	}, nil)
+}
+
+// loadPreset replaces the project with the embedded preset name (never
+// saved: Save asks for a file).
+func (w *Window) loadPreset(name string) {
+	doc, err := presetDocument(name)
+	if err != nil {
+		w.showError("Cannot load the preset", err)
+		w.props.showPreset(w.preset)
+		return
+	}
+	w.replace(doc, "", name)
+}
+
+// replace makes doc the project (from path, or the preset named preset),
+// with a fresh history, and shows it from its first frame.
+func (w *Window) replace(doc *project.Document, path, preset string) {
+	if err := w.ed.Replace(doc, path); err != nil {
+		w.showError("Cannot use this project", err)
+		return
+	}
+	w.afterReplace(preset)
+}
+
+// afterReplace shows a project that just replaced the old one.
+func (w *Window) afterReplace(preset string) {
+	w.stopPlayback()
+	w.baseline, _ = project.Marshal(w.ed.Doc())
+	w.preset = preset
+	w.props.showPreset(preset)
+	w.props.selected = 0
+	w.frame = 0
+	w.editErr = nil
+	w.syncControls()
+	w.menu.updateRecent()
+}
+
+// openDialog asks for a project file to open, after asking about unsaved
+// changes.
+func (w *Window) openDialog() {
+	w.confirmDiscard("Open a project", func() {
+		d := dialog.NewFileOpen(func(rc fyne.URIReadCloser, err error) {
+			if err != nil {
+				w.showError("Cannot open the file", err)
+				return
+			}
+			if rc == nil {
+				return // cancelled
+			}
+			path := rc.URI().Path()
+			rc.Close()
+			w.openPath(path)
+		}, w.win)
+		d.SetFilter(storage.NewExtensionFileFilter([]string{".json"}))
+		w.startIn(d)
+		d.Show()
+	}, nil)
+}
+
+// startIn points a file dialog at the folder of the project's file, if it
+// has one.
+func (w *Window) startIn(d interface{ SetLocation(fyne.ListableURI) }) {
+	dir := ""
+	if p := w.ed.Path(); p != "" {
+		dir = filepath.Dir(p)
+	} else if files := w.recent.Existing(); len(files) > 0 {
+		dir = filepath.Dir(files[0])
+	}
+	if dir == "" {
+		return
+	}
+	if lu, err := storage.ListerForURI(storage.NewFileURI(dir)); err == nil {
+		d.SetLocation(lu)
+	}
+}
+
+// openPath opens the project file at path. A file that cannot be read or
+// has a bad field shows an error dialog naming the file and the field, and
+// the current project stays as it was. It reports whether it opened.
+func (w *Window) openPath(path string) bool {
+	if err := w.ed.Open(path); err != nil {
+		w.showError("Could not open "+filepath.Base(path), err)
+		return false
+	}
+	w.recent.Add(path)
+	w.afterReplace("")
+	return true
+}
+
+// save writes the project to its file, or asks for one first. then, if
+// not nil, runs after a successful save.
+func (w *Window) save(then func()) {
+	if w.ed.Path() == "" {
+		w.saveAs(then)
+		return
+	}
+	if w.saveTo(w.ed.Path()) && then != nil {
+		then()
+	}
+}
+
+// saveAs asks for a file name and saves the project there.
+func (w *Window) saveAs(then func()) {
+	d := dialog.NewFileSave(func(wc fyne.URIWriteCloser, err error) {
+		if err != nil {
+			w.showError("Cannot save", err)
+			return
+		}
+		if wc == nil {
+			return // cancelled
+		}
+		path := wc.URI().Path()
+		wc.Close() // the file is written atomically below, not through wc
+		if !strings.EqualFold(filepath.Ext(path), ".json") {
+			os.Remove(path) // the empty file the dialog made
+			path += ".json"
+		}
+		if w.saveTo(path) && then != nil {
+			then()
+		}
+	}, w.win)
+	d.SetFileName(safeFileName(projectName(w.ed.Doc(), w.ed.Path())) + ".json")
+	d.SetFilter(storage.NewExtensionFileFilter([]string{".json"}))
+	w.startIn(d)
+	d.Show()
+}
+
+// safeFileName turns a project name into a file name: letters, digits,
+// '-' and '_' kept, spaces to '-', anything else dropped.
+func safeFileName(name string) string {
+	var b strings.Builder
+	for _, r := range strings.TrimSpace(name) {
+		switch {
+		case r == ' ':
+			b.WriteRune('-')
+		case r == '-' || r == '_' || r >= '0' && r <= '9' || r >= 'a' && r <= 'z' || r >= 'A' && r <= 'Z':
+			b.WriteRune(r)
+		}
+	}
+	if b.Len() == 0 {
+		return "untitled"
+	}
+	return b.String()
+}
+
+// saveTo saves the project at path atomically and reports success; a
+// failure shows an error dialog and leaves the old file whole.
+func (w *Window) saveTo(path string) bool {
+	if err := w.ed.Save(path); err != nil {
+		w.showError("Could not save "+filepath.Base(path), err)
+		return false
+	}
+	w.recent.Add(path)
+	w.preset = ""
+	w.props.showPreset("")
+	w.updateTitle()
+	w.menu.update()
+	w.menu.updateRecent()
+	return true
+}
+
+// showError shows err in a dialog under a title such as "Could not open
+// pan.json". Project errors already name the file and the field.
+func (w *Window) showError(title string, err error) {
+	var pe *project.Error
+	msg := errorText(err)
+	if errors.As(err, &pe) {
+		msg += "\n\nThe project you had open is unchanged."
+	}
+	text := widget.NewLabel(msg)
+	text.Wrapping = fyne.TextWrapWord
+	d := dialog.NewCustom(title, "OK", sized(text, 420, 0), w.win)
+	w.lastDialog = &shownDialog{title: title, message: msg, d: d}
+	d.Show()
+}
+
+// shownDialog records the last dialog the window showed, for tests.
+type shownDialog struct {
+	title, message string
+	d              dialog.Dialog
+	choose         map[string]func() // prompt buttons by label
+}
+
+// confirmDiscard runs proceed at once if there are no unsaved changes.
+// Otherwise it asks whether to save them first, discard them, or cancel
+// (then cancel runs, if not nil). action names what is about to happen.
+func (w *Window) confirmDiscard(action string, proceed, cancel func()) {
+	if !w.dirty() {
+		proceed()
+		return
+	}
+	name := projectName(w.ed.Doc(), w.ed.Path())
+	msg := widget.NewLabel(fmt.Sprintf("%s has changes that are not saved. %s will lose them unless you save first.", name, action))
+	msg.Wrapping = fyne.TextWrapWord
+	d := dialog.NewCustomWithoutButtons("Save changes?", sized(msg, 420, 0), w.win)
+	choose := map[string]func(){
+		"Save": func() {
+			d.Hide()
+			w.save(proceed)
+		},
+		"Don't save": func() {
+			d.Hide()
+			proceed()
+		},
+		"Cancel": func() {
+			d.Hide()
+			if cancel != nil {
+				cancel()
+			}
+		},
+	}
+	save := widget.NewButton("Save", choose["Save"])
+	save.Importance = widget.HighImportance
+	d.SetButtons([]fyne.CanvasObject{
+		widget.NewButton("Cancel", choose["Cancel"]),
+		widget.NewButton("Don't save", choose["Don't save"]),
+		save,
+	})
+	w.lastDialog = &shownDialog{title: "Save changes?", message: msg.Text, d: d, choose: choose}
+	d.Show()
+}
+
+// requestClose is the window's close intercept: it asks about unsaved
+// changes, then closes.
+func (w *Window) requestClose() {
+	w.confirmDiscard("Closing", w.closeNow, nil)
+}
+
+// closeNow stops playback and the worker and closes the window.
+func (w *Window) closeNow() {
+	w.stopPlayback()
+	w.closed = true
+	go w.comp.Close() // waits for a computation in progress; never on the UI goroutine
+	w.win.Close()
+}
+
+// recentItems returns the Open Recent submenu's items.
+func (w *Window) recentItems() []*fyne.MenuItem {
+	files := w.recent.Existing()
+	if len(files) == 0 {
+		it := fyne.NewMenuItem("(no recent projects)", nil)
+		it.Disabled = true
+		return []*fyne.MenuItem{it}
+	}
+	items := make([]*fyne.MenuItem, 0, len(files))
+	for _, p := range files {
+		p := p
+		items = append(items, fyne.NewMenuItem(p, func() {
+			w.confirmDiscard("Opening "+filepath.Base(p), func() { w.openPath(p) }, nil)
+		}))
+	}
+	return items
+}

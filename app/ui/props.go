@@ -1,0 +1,384 @@
+package ui
+
+import (
+	"fmt"
+	"slices"
+
+	"fyne.io/fyne/v2"
+	"fyne.io/fyne/v2/container"
+	"fyne.io/fyne/v2/theme"
+	"fyne.io/fyne/v2/widget"
+
+	"propflight/app/editor"
+	"propflight/app/project"
+	"propflight/assets"
+	"propflight/physics"
+	"propflight/widgets"
+)
+
+// propPanel is the Prop tab: the preset picker, the list of parts and the
+// selected part's shape, dimensions, mass or density, position and
+// rotation.
+type propPanel struct {
+	w       *Window
+	content *fyne.Container
+
+	preset   *widget.Select
+	list     *widget.List
+	labels   []string // list rows, from the document
+	selected int      // selected part, -1 for none
+	add      *widget.Select
+	dup      *widget.Button
+	remove   *widget.Button
+	summary  *widget.Label // the prop's mass and parts count, from the last result
+	partBox  *fyne.Container
+	built    partKey // what partBox shows
+	name     *widget.Entry
+	shape    *widget.Select
+	massMode *widget.RadioGroup
+	partF    fieldSet // number fields of the selected part (rebuilt with it)
+}
+
+// partKey is what decides which controls the part editor holds.
+type partKey struct {
+	index   int
+	shape   string
+	density bool
+	parts   int
+}
+
+const (
+	modeMass    = "mass"
+	modeDensity = "density"
+)
+
+func newPropPanel(w *Window) *propPanel {
+	p := &propPanel{w: w, selected: 0, built: partKey{index: -2}}
+	p.preset = widget.NewSelect(assets.PresetNames(), p.pickPreset)
+	p.preset.PlaceHolder = "load a kitchen prop…"
+
+	p.list = widget.NewList(
+		func() int { return len(p.labels) },
+		func() fyne.CanvasObject { return newLabel("part name") },
+		func(id widget.ListItemID, o fyne.CanvasObject) {
+			if id < len(p.labels) {
+				o.(*widget.Label).SetText(p.labels[id])
+			}
+		})
+	p.list.OnSelected = func(id widget.ListItemID) {
+		if id == p.selected {
+			return
+		}
+		p.selected = id
+		p.w.syncing++
+		p.syncPart(p.w.ed.Doc())
+		p.w.syncing--
+	}
+
+	p.add = widget.NewSelect(physics.ShapeNames(), func(shape string) {
+		if shape == "" {
+			return
+		}
+		p.add.ClearSelected()
+		p.addPart(shape)
+	})
+	p.add.PlaceHolder = "add a part…"
+	p.dup = widget.NewButtonWithIcon("duplicate", theme.ContentCopyIcon(), p.duplicatePart)
+	p.remove = widget.NewButtonWithIcon("remove", theme.ContentRemoveIcon(), p.removePart)
+	p.summary = note("")
+	p.partBox = container.NewVBox()
+
+	p.content = container.NewVBox(
+		heading("Preset"),
+		p.preset,
+		note("Props from our slapstick kitchen. Loading one replaces the project."),
+		widget.NewSeparator(),
+		heading("Parts"),
+		sized(p.list, 0, 150),
+		container.NewGridWithColumns(3, p.add, p.dup, p.remove),
+		p.summary,
+		widget.NewSeparator(),
+		p.partBox,
+	)
+	return p
+}
+
+// fields returns the number fields the panel has now.
+func (p *propPanel) fields() fieldSet { return p.partF }
+
+// showPreset shows name in the preset picker without loading it.
+func (p *propPanel) showPreset(name string) {
+	p.w.syncing++
+	if name == "" {
+		p.preset.ClearSelected()
+	} else {
+		p.preset.SetSelected(name)
+	}
+	p.w.syncing--
+}
+
+// pickPreset loads the named preset, asking first if that would lose
+// unsaved changes.
+func (p *propPanel) pickPreset(name string) {
+	if p.w.syncing > 0 || name == "" {
+		return
+	}
+	p.w.confirmDiscard("Load the "+name+" preset", func() { p.w.loadPreset(name) }, func() { p.showPreset(p.w.preset) })
+}
+
+// sync sets the list and the part editor from the document.
+func (p *propPanel) sync(d *project.Document) {
+	p.labels = p.labels[:0]
+	for i := range d.Prop.Parts {
+		p.labels = append(p.labels, partLabel(&d.Prop.Parts[i], i))
+	}
+	if p.selected >= len(p.labels) {
+		p.selected = len(p.labels) - 1
+	}
+	if p.selected < 0 && len(p.labels) > 0 {
+		p.selected = 0
+	}
+	p.list.Refresh()
+	if p.selected >= 0 {
+		p.list.Select(p.selected)
+	} else {
+		p.list.UnselectAll()
+	}
+	if len(p.labels) <= 1 {
+		p.remove.Disable()
+	} else {
+		p.remove.Enable()
+	}
+	p.syncPart(d)
+}
+
+// syncPart rebuilds the part editor if the selected part's controls
+// differ from those shown, and sets their values.
+func (p *propPanel) syncPart(d *project.Document) {
+	if p.selected < 0 || p.selected >= len(d.Prop.Parts) {
+		p.partBox.RemoveAll()
+		p.built = partKey{index: -1}
+		return
+	}
+	part := d.Prop.Parts[p.selected]
+	key := partKey{index: p.selected, shape: part.Shape, density: part.Density != nil, parts: len(d.Prop.Parts)}
+	if key != p.built {
+		p.buildPart(key)
+	}
+	p.name.SetText(part.Name)
+	p.shape.SetSelected(part.Shape)
+	if part.Density != nil {
+		p.massMode.SetSelected(modeDensity)
+	} else {
+		p.massMode.SetSelected(modeMass)
+	}
+	i := 0
+	for _, dm := range shapeDimensions(part.Shape) {
+		if v, ok := dimValue(&part, dm); ok {
+			setValue(p.partF[i], v)
+		}
+		i++
+	}
+	if part.Density != nil {
+		setValue(p.partF[i], *part.Density)
+	} else if part.Mass != nil {
+		setValue(p.partF[i], *part.Mass)
+	}
+	i++
+	pos, rot := vecOr(part.Position), vecOr(part.RotationDeg)
+	for k := range 3 {
+		setValue(p.partF[i+k], pos[k])
+		setValue(p.partF[i+3+k], rot[k])
+	}
+}
+
+// buildPart makes the controls of the selected part for key.
+func (p *propPanel) buildPart(key partKey) {
+	w := p.w
+	i := key.index
+	p.built = key
+	p.partF = nil
+	tag := func(field string) string { return fmt.Sprintf("part %d %s", i, field) }
+
+	p.name = widget.NewEntry()
+	p.name.SetPlaceHolder(key.shape + " " + fmt.Sprint(i+1))
+	p.name.OnChanged = func(s string) {
+		if w.edit("Rename part", tag("name"), false, func(d *project.Document) error {
+			d.Prop.Parts[i].Name = s
+			return nil
+		}) {
+			p.refreshLabel(i, s, key.shape)
+		}
+	}
+	p.name.OnSubmitted = func(string) { w.ed.EndMerge() }
+
+	p.shape = widget.NewSelect(physics.ShapeNames(), func(s string) {
+		w.editAndSync("Change shape to "+s, func(d *project.Document) error {
+			d.Prop.Parts[i] = changeShape(d.Prop.Parts[i], s)
+			return nil
+		})
+	})
+
+	var dims []fyne.CanvasObject
+	for _, dm := range shapeDimensions(key.shape) {
+		dm := dm
+		f := w.newField(&p.partF, dm.Label, widgets.Length, 0.001, 2, func(v float64, final bool) {
+			w.edit("Change "+dm.Label, tag(dm.Field+fmt.Sprint(dm.Index)), final, func(d *project.Document) error {
+				setDim(&d.Prop.Parts[i], dm, v)
+				return nil
+			})
+		})
+		f.SetLog(true)
+		dims = append(dims, f)
+	}
+
+	p.massMode = widget.NewRadioGroup([]string{modeMass, modeDensity}, func(s string) {
+		if s == "" {
+			return
+		}
+		w.editAndSync("Give the "+s, func(d *project.Document) error {
+			d.Prop.Parts[i] = useDensity(d.Prop.Parts[i], s == modeDensity)
+			return nil
+		})
+	})
+	p.massMode.Horizontal = true
+	p.massMode.Required = true
+	var amount *widgets.NumberField
+	if key.density {
+		amount = w.newField(&p.partF, "density", widgets.Density, 10, 25000, func(v float64, final bool) {
+			w.edit("Change density", tag("density"), final, func(d *project.Document) error {
+				d.Prop.Parts[i].Density, d.Prop.Parts[i].Mass = ptrTo(v), nil
+				return nil
+			})
+		})
+	} else {
+		amount = w.newField(&p.partF, "mass", widgets.Mass, 0.001, 50, func(v float64, final bool) {
+			w.edit("Change mass", tag("mass"), final, func(d *project.Document) error {
+				d.Prop.Parts[i].Mass, d.Prop.Parts[i].Density = ptrTo(v), nil
+				return nil
+			})
+		})
+	}
+	amount.SetLog(true)
+	if key.shape == "shell" {
+		p.massMode.Disable()
+	}
+
+	var place, turn []fyne.CanvasObject
+	for k, axis := range []string{"x", "y", "z"} {
+		f := w.newField(&p.partF, "position "+axis, widgets.Length, -1, 1, func(v float64, final bool) {
+			w.edit("Move part", tag("position"+axis), final, func(d *project.Document) error {
+				d.Prop.Parts[i].Position = setVecElem(d.Prop.Parts[i].Position, k, v)
+				return nil
+			})
+		})
+		place = append(place, f)
+	}
+	for k, axis := range []string{"x", "y", "z"} {
+		f := w.newField(&p.partF, "rotation "+axis, widgets.Angle, -180, 180, func(v float64, final bool) {
+			w.edit("Turn part", tag("rotation"+axis), final, func(d *project.Document) error {
+				d.Prop.Parts[i].RotationDeg = setVecElem(d.Prop.Parts[i].RotationDeg, k, v)
+				return nil
+			})
+		})
+		turn = append(turn, f)
+	}
+	p.partF.alignLabels()
+
+	objs := []fyne.CanvasObject{
+		heading(fmt.Sprintf("Part %d of %d", i+1, key.parts)),
+		container.NewBorder(nil, nil, widget.NewLabel("name"), nil, p.name),
+		container.NewBorder(nil, nil, widget.NewLabel("shape"), nil, p.shape),
+		note(shapeNote(key.shape)),
+	}
+	objs = append(objs, dims...)
+	objs = append(objs, p.massMode, amount)
+	if key.shape == "shell" {
+		objs = append(objs, note("A thin shell has no volume: give its mass."))
+	}
+	objs = append(objs, heading("Place in the prop"),
+		note("Position of the part's own centre of mass and its turn about the prop's x, then y, then z axis."))
+	objs = append(objs, place...)
+	objs = append(objs, turn...)
+	p.partBox.Objects = objs
+	p.partBox.Refresh()
+}
+
+// shapeNote says how a shape's dimensions are measured.
+func shapeNote(shape string) string {
+	switch shape {
+	case "box":
+		return "Full edge lengths along the part's x, y and z."
+	case "cylinder":
+		return "Solid; its axis is the part's z."
+	case "tube":
+		return "Open-ended pipe; its axis is the part's z."
+	case "sphere":
+		return "Solid ball."
+	case "shell":
+		return "Thin hollow ball."
+	case "ellipsoid":
+		return "Solid; half-widths along the part's x, y and z."
+	case "cone":
+		return "Solid; axis along the part's z, point toward +z."
+	case "torus":
+		return "Solid ring: the radius of its centre line and of the tube; axis along the part's z."
+	}
+	return ""
+}
+
+// refreshLabel updates one row of the list after a rename.
+func (p *propPanel) refreshLabel(i int, name, shape string) {
+	if i < len(p.labels) {
+		pt := project.Part{Name: name, Shape: shape}
+		p.labels[i] = partLabel(&pt, i)
+		p.list.RefreshItem(i)
+	}
+}
+
+// addPart adds a part of the shape after the others and selects it.
+func (p *propPanel) addPart(shape string) {
+	var n int
+	p.w.editAndSyncThen("Add "+shape, func(d *project.Document) error {
+		d.Prop.Parts = append(d.Prop.Parts, newPart(shape, freshName(d, shape)))
+		n = len(d.Prop.Parts) - 1
+		return nil
+	}, func() { p.selected = n })
+}
+
+// duplicatePart copies the selected part next to it.
+func (p *propPanel) duplicatePart() {
+	i := p.selected
+	p.w.editAndSyncThen("Duplicate part", func(d *project.Document) error {
+		if i < 0 || i >= len(d.Prop.Parts) {
+			return fmt.Errorf("no part selected")
+		}
+		c := d.Prop.Parts[i]
+		c.Name = freshName(d, partLabel(&c, i))
+		d.Prop.Parts = slices.Insert(d.Prop.Parts, i+1, c)
+		return nil
+	}, func() { p.selected = i + 1 })
+}
+
+// removePart removes the selected part; the last part stays (a prop needs
+// one).
+func (p *propPanel) removePart() {
+	i := p.selected
+	p.w.editAndSyncThen("Remove part", func(d *project.Document) error {
+		if len(d.Prop.Parts) <= 1 {
+			return fmt.Errorf("a prop needs at least one part")
+		}
+		d.Prop.Parts = slices.Delete(d.Prop.Parts, i, i+1)
+		return nil
+	}, func() { p.selected = max(0, i-1) })
+}
+
+// setResult shows the prop's mass from a fresh result.
+func (p *propPanel) setResult(res editor.Result) {
+	if res.Scene == nil {
+		return
+	}
+	mp := res.Scene.Mass
+	p.summary.SetText(fmt.Sprintf("%d parts, %s kg in all; centre of mass (%s, %s, %s) m.",
+		len(res.Scene.Prop.Parts), sig(mp.Mass), fixed(mp.CM.X), fixed(mp.CM.Y), fixed(mp.CM.Z)))
+}

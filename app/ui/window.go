@@ -1,0 +1,447 @@
+package ui
+
+import (
+	"bytes"
+	"errors"
+	"fmt"
+	"path/filepath"
+	"strings"
+
+	"fyne.io/fyne/v2"
+	"fyne.io/fyne/v2/container"
+	"fyne.io/fyne/v2/widget"
+
+	"propflight/app/editor"
+	"propflight/app/project"
+	"propflight/assets"
+	"propflight/physics"
+	"propflight/widgets"
+)
+
+// Window is Propflight's main window: the open project, the controls that
+// edit it, the preview, timeline and verdict of its take. Every method
+// runs on the UI goroutine.
+type Window struct {
+	app    fyne.App
+	win    fyne.Window
+	ed     *editor.Editor
+	comp   computer
+	recent *editor.Recent
+
+	thr      physics.Thresholds
+	imperial bool
+	syncing  int  // > 0 while controls are set from the document: their callbacks do nothing
+	closed   bool // the window is gone; late results are dropped
+
+	requested uint64        // sequence number of the last request
+	applied   uint64        // sequence number of the last result applied
+	result    editor.Result // the last result applied (it may carry an error)
+	good      editor.Result // the last result with a take: what the preview shows
+	editErr   error         // an edit the editor refused (such as a number JSON cannot hold)
+
+	frame int // current frame of the take, 0 = release
+	play  playback
+
+	props    *propPanel
+	throw    *throwPanel
+	verdict  *verdictPanel
+	view     *previewPane
+	timeline *timelinePane
+	menu     *menus
+
+	preset     string       // the preset the project came from, "" for a file or a new one
+	baseline   []byte       // the project as opened, loaded or started: what "unsaved" compares against when it has no file
+	lastDialog *shownDialog // the last dialog shown (for tests)
+}
+
+// computer is what the window asks for recomputes: editor.Worker, or the
+// synchronous stand-in the tests use.
+type computer interface {
+	Request(doc *project.Document, thr physics.Thresholds) uint64
+	Close()
+}
+
+// syncComputer computes on the caller's goroutine, for tests: the result
+// is delivered before Request returns.
+type syncComputer struct {
+	seq     uint64
+	deliver func(editor.Result)
+}
+
+func (s *syncComputer) Request(doc *project.Document, thr physics.Thresholds) uint64 {
+	s.seq++
+	res := editor.Compute(doc, thr)
+	res.Seq = s.seq
+	s.deliver(res)
+	return s.seq
+}
+
+func (s *syncComputer) Close() {}
+
+// Run opens the window on the project file at path ("" opens the embedded
+// demo preset, assets.Demo) and runs the app until the window closes. A
+// path that cannot be opened is an error naming the file and field, and no
+// window opens.
+func Run(a fyne.App, path string) error {
+	doc, err := loadStart(path)
+	if err != nil {
+		return err
+	}
+	w, err := NewWindow(a, doc, path)
+	if err != nil {
+		return err
+	}
+	if path == "" {
+		w.preset = assets.Demo
+		w.props.showPreset(assets.Demo)
+	}
+	w.win.ShowAndRun()
+	return nil
+}
+
+// loadStart returns the project Run opens: the file at path, or the demo.
+func loadStart(path string) (*project.Document, error) {
+	if path == "" {
+		return presetDocument(assets.Demo)
+	}
+	doc, err := project.Load(path)
+	if err != nil {
+		return nil, err
+	}
+	if _, err := doc.Build(); err != nil {
+		return nil, err
+	}
+	return doc, nil
+}
+
+// presetDocument parses the embedded preset name. Its file name is left
+// empty: the preset is not a file the user has, so errors name only the
+// field.
+func presetDocument(name string) (*project.Document, error) {
+	data, err := assets.Preset(name)
+	if err != nil {
+		return nil, err
+	}
+	doc, err := project.Parse(name+".json", data)
+	if err != nil {
+		return nil, err
+	}
+	doc.File = ""
+	return doc, nil
+}
+
+// NewWindow makes the window on doc, which came from path ("" for a
+// project never saved), and starts its recompute worker. The window is
+// not shown; call Show or ShowAndRun on Window.Fyne().
+func NewWindow(a fyne.App, doc *project.Document, path string) (*Window, error) {
+	return newWindow(a, doc, path, false)
+}
+
+// windowOptions are the test hooks of newWindowWith.
+type windowOptions struct {
+	synchronous bool         // compute on the UI goroutine instead of the worker
+	do          func(func()) // how worker results reach the UI goroutine (fyne.Do)
+}
+
+// newWindow is NewWindow with, for tests, a synchronous computer instead
+// of the worker goroutine.
+func newWindow(a fyne.App, doc *project.Document, path string, synchronous bool) (*Window, error) {
+	return newWindowWith(a, doc, path, windowOptions{synchronous: synchronous})
+}
+
+func newWindowWith(a fyne.App, doc *project.Document, path string, opt windowOptions) (*Window, error) {
+	if doc == nil {
+		return nil, errors.New("ui: no project")
+	}
+	ed, err := editor.New(doc, path)
+	if err != nil {
+		return nil, err
+	}
+	w := &Window{app: a, ed: ed, thr: physics.DefaultThresholds()}
+	w.play.loop = true
+	if opt.synchronous {
+		w.comp = &syncComputer{deliver: w.apply}
+	} else {
+		do := opt.do
+		if do == nil {
+			do = fyne.Do
+		}
+		w.comp = editor.NewWorker(func(res editor.Result) {
+			do(func() { w.apply(res) })
+		})
+	}
+	if rp, err := editor.DefaultRecentPath(); err == nil {
+		w.recent = editor.LoadRecent(rp)
+	} else {
+		w.recent = editor.LoadRecent("")
+	}
+	w.baseline, _ = project.Marshal(w.ed.Doc())
+	w.win = a.NewWindow("Propflight")
+	w.build()
+	w.win.Resize(fyne.NewSize(1560, 960))
+	w.win.SetCloseIntercept(w.requestClose)
+	w.syncControls()
+	return w, nil
+}
+
+// Fyne returns the Fyne window.
+func (w *Window) Fyne() fyne.Window { return w.win }
+
+// Editor returns the window's editor (the open project).
+func (w *Window) Editor() *editor.Editor { return w.ed }
+
+// build makes the controls and lays the window out: prop and throw on the
+// left, preview and timeline in the centre, the verdict on the right.
+func (w *Window) build() {
+	w.syncing++ // controls set their first values: no callbacks
+	defer func() { w.syncing-- }()
+	w.props = newPropPanel(w)
+	w.throw = newThrowPanel(w)
+	w.verdict = newVerdictPanel(w)
+	w.view = newPreviewPane(w)
+	w.timeline = newTimelinePane(w)
+	w.menu = newMenus(w)
+	w.win.SetMainMenu(w.menu.main)
+
+	tabs := container.NewAppTabs(
+		container.NewTabItem("Prop", scrollColumn(w.props.content)),
+		container.NewTabItem("Throw", scrollColumn(w.throw.content)),
+	)
+	left := sized(tabs, 400, 300)
+	right := sized(scrollColumn(w.verdict.content), 370, 300)
+	centre := container.NewBorder(w.view.toolbar, w.timeline.content, nil, nil, w.view.preview)
+	w.win.SetContent(container.NewBorder(nil, nil, left, right, centre))
+	w.installKeys()
+}
+
+// edit applies one change to the document as an undo step labelled label.
+// Edits with the same non-empty key in a row merge (the ticks of one
+// drag); final ends the merge. A refused edit shows its error in the
+// verdict panel. It reports whether the edit was accepted.
+func (w *Window) edit(label, key string, final bool, fn func(d *project.Document) error) bool {
+	if w.syncing > 0 {
+		return false
+	}
+	err := w.ed.Apply(label, key, fn)
+	if final || key == "" {
+		w.ed.EndMerge()
+	}
+	w.editErr = err
+	w.changed()
+	return err == nil
+}
+
+// editAndSync is edit for changes that reshape the controls (a new part,
+// another shape, mass to density): the controls are set again from the
+// document afterwards.
+func (w *Window) editAndSync(label string, fn func(d *project.Document) error) {
+	if w.syncing > 0 {
+		return
+	}
+	w.edit(label, "", true, fn)
+	w.syncControls()
+}
+
+// editAndSyncThen is editAndSync that runs then after an accepted edit
+// and before the controls are set again (to select a new part).
+func (w *Window) editAndSyncThen(label string, fn func(d *project.Document) error, then func()) {
+	if w.syncing > 0 {
+		return
+	}
+	if w.edit(label, "", true, fn) {
+		then()
+	}
+	w.syncControls()
+}
+
+// changed updates everything that follows the document: the title, the
+// undo menu and a recompute.
+func (w *Window) changed() {
+	w.updateTitle()
+	w.menu.update()
+	w.recompute()
+}
+
+// syncControls sets every control from the document (after undo, redo,
+// open, new, or an edit that changes which controls there are) and asks
+// for a recompute.
+func (w *Window) syncControls() {
+	w.syncing++
+	doc := w.ed.Doc()
+	w.props.sync(doc)
+	w.throw.sync(doc)
+	w.syncing--
+	w.changed()
+}
+
+// recompute asks the worker for the current document's result.
+func (w *Window) recompute() {
+	w.requested = w.comp.Request(w.ed.Doc(), w.thr)
+}
+
+// apply shows a result: the verdict panel always, the preview and the
+// timeline only when it has a take (else they keep the last good one).
+// Results older than the last one applied are dropped.
+func (w *Window) apply(res editor.Result) {
+	if w.closed || res.Seq <= w.applied {
+		return
+	}
+	w.applied = res.Seq
+	w.result = res
+	if res.Take != nil && res.Scene != nil {
+		w.good = res
+		w.timeline.setTake(res)
+		w.props.setResult(res)
+		w.throw.setResult(res)
+		w.showFrame()
+	}
+	w.verdict.show(res, w.editErr)
+}
+
+// lastFrame returns the last frame of the shown take (0 with none).
+func (w *Window) lastFrame() int {
+	if w.good.Take == nil {
+		return 0
+	}
+	return len(w.good.Take.Frames) - 1
+}
+
+// rate returns the frame rate of the shown take (24 with none).
+func (w *Window) rate() physics.Rate {
+	if w.good.Scene == nil {
+		return project.DefaultFPS
+	}
+	return w.good.Scene.Throw.FPS
+}
+
+// setFrame moves to frame n of the take (clamped): timeline, preview and
+// the frame readout.
+func (w *Window) setFrame(n int) {
+	n = min(max(n, 0), w.lastFrame())
+	w.frame = n
+	w.showFrame()
+}
+
+// showFrame puts the current frame on the timeline, preview and labels.
+// On twos the preview holds each even frame's pose for two frames.
+func (w *Window) showFrame() {
+	w.frame = min(max(w.frame, 0), w.lastFrame())
+	w.timeline.showFrame(w.frame)
+	w.view.showFrame(w.shownFrame())
+}
+
+// shownFrame is the frame whose pose the preview shows: the current one
+// on ones, the even frame at or before it on twos.
+func (w *Window) shownFrame() int { return heldFrame(w.frame, w.throw.onTwos()) }
+
+// heldFrame returns the frame whose pose is on screen at frame n: n on
+// ones, n - n%2 on twos.
+func heldFrame(n int, twos bool) int {
+	if twos {
+		return n - n%2
+	}
+	return n
+}
+
+// title is the window title: the project name, "•" when there are unsaved
+// changes, and the program's name.
+func (w *Window) title() string {
+	name := projectName(w.ed.Doc(), w.ed.Path())
+	if w.dirty() {
+		name += " •"
+	}
+	return name + " — Propflight"
+}
+
+// projectName names the project: its "name", else the file name without
+// folder and extension, else "untitled".
+func projectName(d *project.Document, path string) string {
+	if n := strings.TrimSpace(d.Name); n != "" {
+		return n
+	}
+	if path != "" {
+		base := filepath.Base(path)
+		return strings.TrimSuffix(base, filepath.Ext(base))
+	}
+	return "untitled"
+}
+
+func (w *Window) updateTitle() { w.win.SetTitle(w.title()) }
+
+// dirty reports whether closing or replacing the project would lose
+// changes: for a project with a file, changes since it was opened or last
+// saved (editor.Dirty); for a preset or a new project never saved,
+// changes since it was loaded, so an untouched demo closes without a
+// question.
+func (w *Window) dirty() bool {
+	if w.ed.Path() != "" {
+		return w.ed.Dirty()
+	}
+	now, err := project.Marshal(w.ed.Doc())
+	return err != nil || !bytes.Equal(now, w.baseline)
+}
+
+// fieldSet collects the number fields of one panel so that the imperial
+// toggle reaches them all.
+type fieldSet []*widgets.NumberField
+
+func (fs fieldSet) setImperial(on bool) {
+	for _, f := range fs {
+		f.SetImperial(on)
+	}
+}
+
+// alignLabels gives the fields one label width so their sliders line up.
+func (fs fieldSet) alignLabels() {
+	var lw float32
+	for _, f := range fs {
+		lw = max(lw, f.LabelMinWidth())
+	}
+	for _, f := range fs {
+		f.SetLabelWidth(lw)
+	}
+}
+
+// setImperial switches every number field between metric and imperial
+// display.
+func (w *Window) setImperial(on bool) {
+	w.imperial = on
+	w.props.fields().setImperial(on)
+	w.throw.fields.setImperial(on)
+	w.verdict.fields.setImperial(on)
+	w.view.fields.setImperial(on)
+}
+
+// newField makes a number field that follows the imperial toggle.
+func (w *Window) newField(fs *fieldSet, label string, q widgets.Quantity, lo, hi float64, onChange func(v float64, final bool)) *widgets.NumberField {
+	f := widgets.NewNumberField(label, q, lo, hi, onChange)
+	f.SetImperial(w.imperial)
+	*fs = append(*fs, f)
+	return f
+}
+
+// setValue shows v in field f without calling back, widening the slider's
+// range if a file holds a value beyond it (typed values must lie inside
+// the range, so the range must reach the value shown).
+func setValue(f *widgets.NumberField, v float64) {
+	lo, hi := f.Range()
+	switch {
+	case v > hi:
+		f.SetRange(lo, v*1.5)
+	case v < lo && v < 0:
+		f.SetRange(v*1.5, hi)
+	case v < lo && v > 0:
+		f.SetRange(v/1.5, hi)
+	}
+	f.SetValue(v)
+}
+
+// errorText is how the window words an error for a dialog.
+func errorText(err error) string { return fmt.Sprint(err) }
+
+// newLabel returns a label that truncates instead of widening its column.
+func newLabel(text string) *widget.Label {
+	l := widget.NewLabel(text)
+	l.Truncation = fyne.TextTruncateEllipsis
+	return l
+}
