@@ -3,6 +3,7 @@ package cli
 import (
 	"fmt"
 	"slices"
+	"strconv"
 	"strings"
 )
 
@@ -18,6 +19,13 @@ type Command struct {
 	Format string // --format (export): csv, gltf or png
 	Output string // -o, --output (export, sheet); "-" is standard output
 	Paper  string // --paper (sheet): a4 or letter
+	Twos   bool   // --twos (export csv/png, sheet): every other frame, each pose held two frames
+
+	// PNG sequence (export --format png).
+	Width, Height int    // --width, --height in pixels (default 1280 x 720)
+	View          string // --view: front, side, top or free (default side)
+	Transparent   bool   // --transparent: no background, for compositing
+	Onion         int    // --onion N: onion-skin frames before and after
 }
 
 // UsageError is a mistake in the command line (exit status 2).
@@ -30,7 +38,7 @@ func usagef(format string, args ...any) error {
 }
 
 // Commands lists the command names in the order the help shows them.
-var Commands = []string{"check", "export", "sheet", "presets", "version", "help"}
+var Commands = []string{"check", "export", "sheet", "fit", "presets", "version", "help"}
 
 // Export formats and sheet papers.
 var (
@@ -52,6 +60,12 @@ var flagSpecs = []flagSpec{
 	{"--format", true, []string{"export"}},
 	{"--output", true, []string{"export", "sheet"}},
 	{"--paper", true, []string{"sheet"}},
+	{"--twos", false, []string{"export", "sheet"}},
+	{"--width", true, []string{"export"}},
+	{"--height", true, []string{"export"}},
+	{"--view", true, []string{"export"}},
+	{"--transparent", false, []string{"export"}},
+	{"--onion", true, []string{"export"}},
 	{"--help", false, nil},
 	{"--version", false, nil},
 }
@@ -142,6 +156,25 @@ func Parse(args []string) (Command, error) {
 			cmd.Output = val
 		case "--paper":
 			cmd.Paper = strings.ToLower(val)
+		case "--twos":
+			cmd.Twos = true
+		case "--width", "--height", "--onion":
+			n, err := strconv.Atoi(val)
+			if err != nil {
+				return Command{}, usagef("%s: %s is not a whole number", spec.name, quote(val))
+			}
+			switch spec.name {
+			case "--width":
+				cmd.Width = n
+			case "--height":
+				cmd.Height = n
+			default:
+				cmd.Onion = n
+			}
+		case "--view":
+			cmd.View = strings.ToLower(val)
+		case "--transparent":
+			cmd.Transparent = true
 		case "--help":
 			help = true
 		case "--version":
@@ -223,8 +256,24 @@ func checkExport(cmd *Command) error {
 	if !slices.Contains(Formats, cmd.Format) {
 		return usagef("export: unknown format %s (use %s)", quote(cmd.Format), strings.Join(Formats, ", "))
 	}
+	pngOnly := cmd.Width != 0 || cmd.Height != 0 || cmd.View != "" || cmd.Transparent || cmd.Onion != 0
+	if pngOnly && cmd.Format != "png" {
+		return usagef("export: --width, --height, --view, --transparent and --onion go with --format png")
+	}
+	if cmd.Twos && cmd.Format == "gltf" {
+		return usagef("export: --twos goes with csv or png (glTF keys every frame so any package can re-time it)")
+	}
+	if cmd.Format == "png" && cmd.Output == "-" {
+		return usagef("export: a PNG sequence needs a folder: -o DIR")
+	}
+	if cmd.View != "" && !slices.Contains(Views, cmd.View) {
+		return usagef("export: --view: unknown view %s (use %s)", quote(cmd.View), strings.Join(Views, ", "))
+	}
 	return nil
 }
+
+// Views are the camera views of export --format png.
+var Views = []string{"front", "side", "top", "free"}
 
 // extension returns the extension of the last path element of p.
 func extension(p string) string {

@@ -53,9 +53,9 @@ func TestParse_UsageErrors(t *testing.T) {
 		args []string
 		want string
 	}{
-		{[]string{"--json"}, "no command given (commands: check, export, sheet, presets, version, help; see propflight --help)"},
-		{[]string{"frobnicate"}, "unknown command frobnicate (commands: check, export, sheet, presets, version, help; see propflight --help)"},
-		{[]string{"pan.json"}, "unknown command pan.json (commands: check, export, sheet, presets, version, help; see propflight --help)"},
+		{[]string{"--json"}, "no command given (commands: check, export, sheet, fit, presets, version, help; see propflight --help)"},
+		{[]string{"frobnicate"}, "unknown command frobnicate (commands: check, export, sheet, fit, presets, version, help; see propflight --help)"},
+		{[]string{"pan.json"}, "unknown command pan.json (commands: check, export, sheet, fit, presets, version, help; see propflight --help)"},
 		{[]string{"check", "--jsno"}, "unknown flag --jsno (did you mean --json?) (see propflight --help)"},
 		{[]string{"check", "--pre", "loaf"}, "unknown flag --pre (did you mean --preset?) (see propflight --help)"},
 		{[]string{"check", "-x"}, "unknown flag -x (see propflight --help)"},

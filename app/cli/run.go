@@ -9,6 +9,7 @@ import (
 	"runtime/debug"
 	"strings"
 
+	"propflight/app/footage"
 	"propflight/app/project"
 	"propflight/assets"
 	"propflight/physics"
@@ -40,6 +41,10 @@ func Run(args []string, stdout, stderr io.Writer, openWindow func() error) (code
 			code = ExitFailure
 		}
 	}()
+	if len(args) > 0 && args[0] == "fit" {
+		// The fit command has its own flags (see package app/footage).
+		return footage.RunFit(args[1:], stdout, stderr)
+	}
 	cmd, err := Parse(args)
 	if err != nil {
 		return fail(stderr, err)
@@ -68,7 +73,9 @@ func Run(args []string, stdout, stderr io.Writer, openWindow func() error) (code
 	case "export":
 		err = runExport(&out, cmd)
 	case "sheet":
-		err = usagef("sheet: the timing sheet is not available yet")
+		err = runSheet(&out, cmd)
+	case "fit":
+		err = usagef("fit: give the marks file first: propflight fit MARKS.csv --fps N")
 	default:
 		err = fmt.Errorf("command %q has no handler", cmd.Name) // a bug in Parse
 	}
@@ -214,19 +221,28 @@ tumble or wobble, and its flight frame by frame.
 Usage:
   propflight                          open the window on the demo
   propflight check [FILE] [--json]    mass properties, verdict and flight timing
-  propflight export FILE --format csv -o OUT
-                                      write the take frame by frame
-  propflight sheet FILE -o OUT.pdf [--paper a4|letter]
+  propflight export FILE --format csv|gltf|png -o OUT
+                                      write the take: CSV rows, a glTF 2.0
+                                      animation (.glb or .gltf), or a folder
+                                      of PNG frames
+  propflight sheet FILE -o OUT.pdf [--paper a4|letter] [--twos]
                                       print the timing sheet
+  propflight fit MARKS.csv --fps N [--gravity G] [--scale M] [--json]
+                                      fit marks clicked on footage: gravity in
+                                      pixels, scale, release velocity, turn
   propflight presets                  list the built-in demo props
   propflight version                  print the version
 
 Options (before or after FILE):
   --preset NAME      use a built-in preset instead of FILE (see propflight presets)
   --json             check: print one JSON object instead of the summary
-  --format FORMAT    export: csv (gltf and png are not available yet);
-                     without it the extension of OUT decides
+  --format FORMAT    export: csv, gltf or png; without it the extension of
+                     OUT decides (.csv, .glb, .gltf)
   -o, --output OUT   where to write; "-" is standard output
+  --twos             export csv/png, sheet: every other frame (on twos)
+  --width W, --height H, --view front|side|top|free, --onion N, --transparent
+                     export png: image size (default 1280 x 720), camera
+                     (default side), onion-skin frames, no background
   --paper PAPER      sheet: a4 or letter
   -h, --help         show this help
 

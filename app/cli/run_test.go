@@ -310,9 +310,12 @@ func TestRun_ExitCodes(t *testing.T) {
 		{"negative size", []string{"check", brickWith(t, `[0.2, 0.1, 0.05]`, `[0.2, -0.1, 0.05]`), "--json"}, 2, "edited.json: prop.parts[0].size: must be positive"},
 		{"starts underground", []string{"check", brickWith(t, `"fps": 24,`, `"fps": 24, "ground_y": 2,`)}, 2, "edited.json: throw.release_position: the prop starts at or below the ground"},
 		{"never lands", []string{"check", brickWith(t, `"fps": 24,`, `"fps": 24, "gravity": 0.01,`)}, 2, "edited.json: throw: the prop does not reach the ground within 600 s"},
-		{"gltf not yet", []string{"export", brick, "--format", "gltf", "-o", filepath.Join(dir, "x.gltf")}, 2, "export: the gltf format is not available yet"},
-		{"png not yet", []string{"export", brick, "-o", filepath.Join(dir, "x.png")}, 2, "export: the png format is not available yet"},
-		{"sheet not yet", []string{"sheet", brick, "-o", filepath.Join(dir, "s.pdf")}, 2, "sheet: the timing sheet is not available yet"},
+		{"png size", []string{"export", brick, "--format", "png", "--width", "5", "-o", filepath.Join(dir, "frames")}, 2, "width: must be 16 to 8192 pixels"},
+		{"png to stdout", []string{"export", brick, "--format", "png", "-o", "-"}, 2, "a PNG sequence needs a folder"},
+		{"png flag on csv", []string{"export", brick, "--format", "csv", "--view", "top", "-o", filepath.Join(dir, "x.csv")}, 2, "go with --format png"},
+		{"bad view", []string{"export", brick, "--format", "png", "--view", "under", "-o", filepath.Join(dir, "frames")}, 2, "unknown view"},
+		{"twos on gltf", []string{"export", brick, "--twos", "-o", filepath.Join(dir, "x.glb")}, 2, "--twos goes with csv or png"},
+		{"fit no marks", []string{"fit"}, 2, ""},
 		{"export bad input", []string{"export", brickWith(t, `"mass": 2.0`, `"mass": 0`), "-o", filepath.Join(dir, "bad.csv")}, 2, "prop.parts[0].mass: must be positive"},
 		{"export no -o", []string{"export", brick}, 2, "export: -o OUT is required"},
 		{"export unwritable", []string{"export", brick, "--format", "csv", "-o", filepath.Join(dir, "no", "such", "t.csv")}, 1, "t.csv: cannot write:"},
@@ -398,7 +401,7 @@ func TestRun_StdoutFailure(t *testing.T) {
 
 func TestRun_HelpVersionPresets(t *testing.T) {
 	_, stdout, _ := run(t, "-h")
-	for _, want := range []string{"propflight check [FILE] [--json]", "propflight export FILE --format csv -o OUT", "--preset NAME", "Exit status: 0 ok, 2 bad input or usage, 1 other failure", Safety} {
+	for _, want := range []string{"propflight check [FILE] [--json]", "propflight export FILE --format csv|gltf|png -o OUT", "propflight sheet FILE -o OUT.pdf", "propflight fit MARKS.csv", "--preset NAME", "Exit status: 0 ok, 2 bad input or usage, 1 other failure", Safety} {
 		if !strings.Contains(stdout, want) {
 			t.Errorf("help lacks %q", want)
 		}
@@ -456,5 +459,43 @@ func TestRun_ExportCSV(t *testing.T) {
 	}
 	if entries, _ := os.ReadDir(dir); len(entries) != 1 {
 		t.Errorf("export left %d entries in the folder", len(entries))
+	}
+}
+
+// TestRun_ExportFormats runs every export and the sheet end to end on the
+// contract sample and checks the files are what they claim: a GLB header
+// (glTF 2.0.1 §4.4: magic "glTF", version 2), a JSON glTF, one PNG per
+// frame, a PDF, and the CSV on twos with half the rows.
+func TestRun_ExportFormats(t *testing.T) {
+	_, js, _ := run(t, "check", brick, "--json")
+	frames := int(decodeCheck(t, js)["flight_frames"].(float64))
+	dir := t.TempDir()
+	must := func(args ...string) string {
+		t.Helper()
+		code, stdout, stderr := run(t, args...)
+		if code != 0 || stderr != "" {
+			t.Fatalf("%q: exit %d: %s", args, code, stderr)
+		}
+		return stdout
+	}
+	must("export", brick, "-o", filepath.Join(dir, "take.glb"))
+	if b, _ := os.ReadFile(filepath.Join(dir, "take.glb")); len(b) < 12 || string(b[:4]) != "glTF" || b[4] != 2 {
+		t.Errorf("take.glb is not a GLB")
+	}
+	must("export", brick, "--format", "gltf", "-o", filepath.Join(dir, "take.gltf"))
+	if b, _ := os.ReadFile(filepath.Join(dir, "take.gltf")); !strings.Contains(string(b), `"version": "2.0"`) {
+		t.Errorf("take.gltf is not glTF JSON")
+	}
+	out := must("export", brick, "--format", "png", "--width", "64", "--height", "48", "--view", "side", "-o", filepath.Join(dir, "frames"))
+	if entries, _ := os.ReadDir(filepath.Join(dir, "frames")); len(entries) != frames || !strings.Contains(out, "64x48") {
+		t.Errorf("png: %d files for %d frames (%q)", len(entries), frames, out)
+	}
+	must("sheet", brick, "-o", filepath.Join(dir, "sheet.pdf"), "--paper", "letter", "--twos")
+	if b, _ := os.ReadFile(filepath.Join(dir, "sheet.pdf")); !strings.HasPrefix(string(b), "%PDF-") {
+		t.Errorf("sheet.pdf is not a PDF")
+	}
+	csv := must("export", brick, "--format", "csv", "--twos", "-o", "-")
+	if rows := strings.Count(csv, "\n") - 1; rows != (frames+1)/2 {
+		t.Errorf("csv on twos: %d rows for %d frames", rows, frames)
 	}
 }

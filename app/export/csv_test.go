@@ -169,3 +169,54 @@ func BenchmarkWriteCSV(b *testing.B) {
 	b.SetBytes(int64(buf.Len()))
 	b.ReportMetric(float64(len(take.Frames)), "frames")
 }
+
+// TestWriteCSVTwos: on twos the rows are frames 0, 2, 4, ... and each row's
+// turn and spacing run from the previous row (for a steady spin about the
+// greatest axis, twice the per-frame turn: 2 turns/s at 24 fps is 30
+// degrees a frame, so 60 on twos; common practice, no source).
+func TestWriteCSVTwos(t *testing.T) {
+	take := twosTake(t)
+	var buf bytes.Buffer
+	if err := WriteCSVTwos(&buf, take); err != nil {
+		t.Fatal(err)
+	}
+	lines := strings.Split(strings.TrimSpace(buf.String()), "\n")
+	if lines[0] != CSVHeader || len(lines)-1 != (len(take.Frames)+1)/2 {
+		t.Fatalf("%d rows for %d frames", len(lines)-1, len(take.Frames))
+	}
+	for i, l := range lines[1:] {
+		cols := strings.Split(l, ",")
+		if cols[0] != strconv.Itoa(2*i) {
+			t.Fatalf("row %d is frame %s", i, cols[0])
+		}
+		if i == 0 {
+			continue
+		}
+		turn, _ := strconv.ParseFloat(cols[12], 64)
+		if math.Abs(turn-60) > 1e-6 {
+			t.Errorf("row %d turn %g, want 60", i, turn)
+		}
+		spacing, _ := strconv.ParseFloat(cols[13], 64)
+		a, b := take.Frames[2*i-2].CM, take.Frames[2*i].CM
+		if want := math.Sqrt((a.X-b.X)*(a.X-b.X) + (a.Y-b.Y)*(a.Y-b.Y) + (a.Z-b.Z)*(a.Z-b.Z)); math.Abs(spacing-want) > 1e-12 {
+			t.Errorf("row %d spacing %g, want %g", i, spacing, want)
+		}
+	}
+}
+
+func twosTake(t *testing.T) *physics.Take {
+	t.Helper()
+	prop := physics.Prop{Parts: []physics.Part{{Shape: physics.Box, Size: r3.Vec{X: 0.3, Y: 0.2, Z: 0.02}, Mass: 1, Orient: physics.Identity()}}}
+	mp, err := prop.MassProps()
+	if err != nil {
+		t.Fatal(err)
+	}
+	th := physics.DefaultThrow()
+	th.Velocity = r3.Vec{X: 1, Y: 4}
+	th.Spin = physics.Spin{Axis: physics.Greatest, Rate: 2 * 2 * math.Pi}
+	take, err := physics.Simulate(&prop, &mp, &th)
+	if err != nil {
+		t.Fatal(err)
+	}
+	return take
+}

@@ -39,7 +39,7 @@ const (
 // stdout cannot be written.
 func RunFit(args []string, stdout, stderr io.Writer) int {
 	bad := func(format string, a ...any) int {
-		fmt.Fprintf(stderr, "propflight fit: "+format+"\n", a...)
+		fmt.Fprintf(stderr, "propflight: fit: "+format+"\n", a...)
 		return ExitBadUse
 	}
 	var (
@@ -56,7 +56,7 @@ func RunFit(args []string, stdout, stderr io.Writer) int {
 		}
 		if !strings.HasPrefix(a, "-") || a == "-" {
 			if path != "" {
-				return bad("one marks file, please (got %q and %q)\n%s", path, a, fitUsage)
+				return bad("one marks file, please (got %q and %q) (%s)", path, a, fitUsage)
 			}
 			path = a
 			continue
@@ -65,17 +65,17 @@ func RunFit(args []string, stdout, stderr io.Writer) int {
 		switch name {
 		case "json":
 			if hasValue {
-				return bad("--json takes no value\n%s", fitUsage)
+				return bad("--json takes no value (%s)", fitUsage)
 			}
 			asJSON = true
 			continue
 		case "fps", "gravity", "scale":
 		default:
-			return bad("unknown flag %s\n%s", a, fitUsage)
+			return bad("unknown flag %s (%s)", a, fitUsage)
 		}
 		if !hasValue {
 			if i+1 >= len(args) {
-				return bad("--%s needs a value\n%s", name, fitUsage)
+				return bad("--%s needs a value (%s)", name, fitUsage)
 			}
 			i++
 			value = args[i]
@@ -90,7 +90,7 @@ func RunFit(args []string, stdout, stderr io.Writer) int {
 		}
 	}
 	if path == "" {
-		return bad("the marks file is missing\n%s", fitUsage)
+		return bad("the marks file is missing (%s)", fitUsage)
 	}
 	if haveFPS {
 		r, err := physics.ParseRate(fpsText)
@@ -111,7 +111,7 @@ func RunFit(args []string, stdout, stderr io.Writer) int {
 		}
 	}
 	if !haveFPS && !(opt.Gravity > 0 && opt.MetresPerPixel > 0) {
-		return bad("--fps: required (the footage's frame rate), unless --gravity and --scale are both given to solve it\n%s", fitUsage)
+		return bad("--fps: required (the footage's frame rate), unless --gravity and --scale are both given to solve it (%s)", fitUsage)
 	}
 
 	f, err := os.Open(path)
@@ -136,7 +136,7 @@ func RunFit(args []string, stdout, stderr io.Writer) int {
 	if asJSON {
 		out, err = json.MarshalIndent(res.JSON(), "", "  ")
 		if err != nil {
-			fmt.Fprintf(stderr, "propflight fit: %v\n", err)
+			fmt.Fprintf(stderr, "propflight: fit: %v\n", err)
 			return ExitFailure
 		}
 		out = append(out, '\n')
@@ -144,7 +144,7 @@ func RunFit(args []string, stdout, stderr io.Writer) int {
 		out = []byte(summary(path, res, opt))
 	}
 	if _, err := stdout.Write(out); err != nil {
-		fmt.Fprintf(stderr, "propflight fit: writing the output: %v\n", err)
+		fmt.Fprintf(stderr, "propflight: fit: writing the output: %v\n", err)
 		return ExitFailure
 	}
 	return ExitOK

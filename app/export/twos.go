@@ -1,0 +1,45 @@
+package export
+
+import (
+	"io"
+	"math"
+
+	"gonum.org/v1/gonum/spatial/r3"
+
+	"propflight/physics"
+)
+
+// OnTwos returns the frames an animator draws on twos: every other frame of
+// the take (0, 2, 4, ...), each drawing held for two frames. A returned
+// frame's TurnDeg and Spacing are measured from the previous returned frame
+// (the rotation angle between the two orientations and the straight
+// distance between the two centres of mass), as the timing sheet's table
+// on twos measures them. The take is not changed.
+func OnTwos(take *physics.Take) []physics.Frame {
+	var out []physics.Frame
+	for i := 0; i < len(take.Frames); i += 2 {
+		f := take.Frames[i]
+		if i > 0 {
+			p := &take.Frames[i-2]
+			f.TurnDeg = physics.RotationAngle(p.Orient, f.Orient) * 180 / math.Pi
+			f.Spacing = r3.Norm(r3.Sub(f.CM, p.CM))
+		}
+		out = append(out, f)
+	}
+	return out
+}
+
+// WriteCSVTwos writes the take as WriteCSV does, but only the frames of
+// OnTwos: rows for frames 0, 2, 4, ..., with turn_deg and spacing_m since
+// the previous row.
+func WriteCSVTwos(w io.Writer, take *physics.Take) error {
+	if err := checkTake(take); err != nil {
+		return err
+	}
+	cw := csvWriter{w: w}
+	cw.line(append(cw.buf[:0], CSVHeader...))
+	for _, f := range OnTwos(take) {
+		cw.row(&f)
+	}
+	return cw.err
+}
