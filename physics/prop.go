@@ -127,10 +127,49 @@ func principal(t Mat3) ([3]float64, [3]r3.Vec, error) {
 		moments[i] = vals[i]
 		axes[i] = r3.Unit(r3.Vec{X: vecs.At(0, i), Y: vecs.At(1, i), Z: vecs.At(2, i)})
 	}
+	canonicalDegenerate(&moments, &axes)
 	axes[0] = largestPositive(axes[0])
 	axes[1] = largestPositive(axes[1])
 	axes[2] = r3.Unit(r3.Cross(axes[0], axes[1]))
 	return moments, axes, nil
+}
+
+// degenerateTol is the relative difference under which two principal
+// moments are equal to round-off, so that their axes are any orthonormal
+// pair in a plane (a rod, a disc) and the eigen-solver's choice is
+// arbitrary.
+const degenerateTol = 1e-9
+
+// canonicalDegenerate replaces the arbitrary axes of equal moments by a
+// choice fixed by the prop frame: within the plane of two equal moments,
+// the first axis is the prop axis (x, then y, then z) that lies most
+// nearly in the plane, projected into it; all three equal gives x, y, z.
+// A spin "about the greatest axis" of a rolling pin then means the same
+// turn whatever the solver returned.
+func canonicalDegenerate(m *[3]float64, a *[3]r3.Vec) {
+	eq := func(i, j int) bool {
+		return math.Abs(m[j]-m[i]) <= degenerateTol*math.Max(math.Abs(m[i]), math.Abs(m[j]))
+	}
+	basis := [3]r3.Vec{{X: 1}, {Y: 1}, {Z: 1}}
+	switch {
+	case eq(0, 1) && eq(1, 2):
+		*a = basis
+	case eq(0, 1) || eq(1, 2):
+		i, j, k := 0, 1, 2 // i, j equal; k the distinct axis
+		if eq(1, 2) {
+			i, j, k = 1, 2, 0
+		}
+		n := a[k]
+		best, bestLen := r3.Vec{}, -1.0
+		for _, b := range basis {
+			p := r3.Sub(b, r3.Scale(r3.Dot(b, n), n))
+			if l := r3.Norm(p); l > bestLen+1e-12 {
+				best, bestLen = r3.Scale(1/l, p), l
+			}
+		}
+		a[i] = best
+		a[j] = r3.Unit(r3.Cross(n, best))
+	}
 }
 
 // largestPositive flips v so that its largest-magnitude component is

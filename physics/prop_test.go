@@ -206,3 +206,29 @@ func demoProp() Prop {
 		{Shape: Cone, Radius: 0.02, Height: 0.05, Mass: 0.05, Position: r3.Vec{X: 0.36, Y: 0.01}, Orient: EulerXYZ(0, math.Pi/2, 0)},
 	}}
 }
+
+// TestPrincipal_DegenerateCanonical: a rod's two equal transverse moments
+// get axes fixed by the prop frame, however the rod is built, so "the
+// greatest axis" means one direction (the transverse prop axis nearest to
+// the plane, x before y before z).
+func TestPrincipal_DegenerateCanonical(t *testing.T) {
+	rod := Prop{Parts: []Part{{Shape: Cylinder, Radius: 0.03, Length: 0.45, Mass: 1, Orient: EulerXYZ(0, math.Pi/2, 0)}}}
+	mp := mustMass(t, &rod) // axis along prop x
+	if !vecClose(mp.Axes[0], r3.Vec{X: 1}, 1e-12) || !vecClose(mp.Axes[1], r3.Vec{Y: 1}, 1e-12) || !vecClose(mp.Axes[2], r3.Vec{Z: 1}, 1e-12) {
+		t.Errorf("rod along x: axes %v", mp.Axes)
+	}
+	ball := Prop{Parts: []Part{{Shape: Sphere, Radius: 0.1, Mass: 1, Orient: EulerXYZ(0.3, 0.2, 0.1)}}}
+	if mb := mustMass(t, &ball); mb.Axes != [3]r3.Vec{{X: 1}, {Y: 1}, {Z: 1}} {
+		t.Errorf("sphere: axes %v", mb.Axes)
+	}
+	// A disc lying in the x-z plane: symmetry axis y (greatest); the equal
+	// pair is x, then z x ... chosen right-handed.
+	disc := Prop{Parts: []Part{{Shape: Cylinder, Radius: 0.13, Length: 0.01, Mass: 1, Orient: EulerXYZ(math.Pi/2, 0, 0)}}}
+	md := mustMass(t, &disc)
+	if !vecClose(md.Axes[0], r3.Vec{X: 1}, 1e-12) || math.Abs(math.Abs(md.Axes[2].Y)-1) > 1e-12 {
+		t.Errorf("disc: axes %v", md.Axes)
+	}
+	if d := md.PrincipalMat().Det(); math.Abs(d-1) > 1e-12 {
+		t.Errorf("disc axes not right-handed: %g", d)
+	}
+}

@@ -30,8 +30,12 @@ type Take struct {
 	ApexFrame    int     // frame nearest ApexTime, at most LandingFrame
 }
 
-// MaxFlight is the longest flight Simulate follows, in seconds.
-const MaxFlight = 600.0
+// MaxFlight is the longest flight Simulate follows, in seconds, and
+// MaxFrames the most frames a take may hold (about 10 MB of frames).
+const (
+	MaxFlight = 600.0
+	MaxFrames = 100000
+)
 
 // ErrNoLanding is returned when the prop does not reach the ground within
 // MaxFlight seconds.
@@ -111,6 +115,8 @@ func Simulate(p *Prop, mp *MassProps, th *Throw) (*Take, error) {
 	n := f.rot.substeps(s.L, dt) // |L| is conserved, so one count serves
 	h := dt / float64(n)
 	maxFrames := int(MaxFlight/dt) + 1
+	capped := maxFrames > MaxFrames
+	maxFrames = min(maxFrames, MaxFrames)
 
 	take := &Take{}
 	appendFrame := func(k int, t float64, st body) {
@@ -144,6 +150,9 @@ func Simulate(p *Prop, mp *MassProps, th *Throw) (*Take, error) {
 			s = next
 		}
 		appendFrame(k+1, th.FPS.Time(k+1), s)
+	}
+	if capped {
+		return nil, fieldErr("throw.fps", "the flight is longer than %d frames at %v fps; lower the frame rate or shorten the throw", MaxFrames, th.FPS)
 	}
 	return nil, fmt.Errorf("throw: %w within %g s (check ground_y and release_velocity)", ErrNoLanding, MaxFlight)
 }

@@ -177,6 +177,12 @@ func TestSimulate_Errors(t *testing.T) {
 		t.Errorf("ground out of reach: %v", err)
 	}
 	th = DefaultThrow()
+	th.FPS = Rate{10000, 1}
+	th.Velocity = r3.Vec{Y: 60} // about 12 s: 120000 frames
+	if _, err := Simulate(&p, &mp, &th); !errors.As(err, &fe) || fe.Field != "throw.fps" {
+		t.Errorf("too many frames: %v", err)
+	}
+	th = DefaultThrow()
 	th.Gravity = 0
 	if _, err := Simulate(&p, &mp, &th); !errors.As(err, &fe) || fe.Field != "throw.gravity" {
 		t.Errorf("zero gravity: %v", err)
