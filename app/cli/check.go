@@ -14,11 +14,7 @@ import (
 )
 
 func runCheck(w io.Writer, cmd Command) error {
-	src, err := load(cmd)
-	if err != nil {
-		return err
-	}
-	f, err := fly(src)
+	f, err := loadAndFly(cmd)
 	if err != nil {
 		return err
 	}

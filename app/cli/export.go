@@ -22,11 +22,7 @@ const (
 // runExport writes the take in cmd.Format to cmd.Output ("-": out, which
 // Run copies to standard output). Files are written atomically.
 func runExport(out io.Writer, cmd Command) error {
-	src, err := load(cmd)
-	if err != nil {
-		return err
-	}
-	f, err := fly(src)
+	f, err := loadAndFly(cmd)
 	if err != nil {
 		return err
 	}
@@ -91,11 +87,7 @@ func runPNG(out io.Writer, cmd Command, in export.Input) error {
 
 // runSheet writes the timing sheet PDF.
 func runSheet(out io.Writer, cmd Command) error {
-	src, err := load(cmd)
-	if err != nil {
-		return err
-	}
-	f, err := fly(src)
+	f, err := loadAndFly(cmd)
 	if err != nil {
 		return err
 	}

@@ -168,6 +168,15 @@ type flight struct {
 	take    *physics.Take
 }
 
+// loadAndFly loads the command's project and flies it.
+func loadAndFly(cmd Command) (*flight, error) {
+	src, err := load(cmd)
+	if err != nil {
+		return nil, err
+	}
+	return fly(src)
+}
+
 // fly builds the scene, judges it under the default thresholds and
 // simulates the take. Simulation problems name the file.
 func fly(src *source) (*flight, error) {

@@ -76,6 +76,7 @@ func (w *Window) openDialog() {
 		}, w.win)
 		d.SetFilter(storage.NewExtensionFileFilter([]string{".json"}))
 		w.startIn(d)
+		d.Resize(fileDialogSize)
 		d.Show()
 	}, nil)
 }
@@ -145,8 +146,13 @@ func (w *Window) saveAs(then func()) {
 	d.SetFileName(safeFileName(projectName(w.ed.Doc(), w.ed.Path())) + ".json")
 	d.SetFilter(storage.NewExtensionFileFilter([]string{".json"}))
 	w.startIn(d)
+	d.Resize(fileDialogSize)
 	d.Show()
 }
+
+// fileDialogSize is the size of the open and save dialogs: room for a
+// folder of project files.
+var fileDialogSize = fyne.NewSize(820, 580)
 
 // safeFileName turns a project name into a file name: letters, digits,
 // '-' and '_' kept, spaces to '-', anything else dropped.

@@ -124,10 +124,9 @@ func (w *Window) redo() {
 }
 
 // installKeys adds the keyboard: the menu shortcuts on the canvas too
-// (they act when no menu bar is shown), and Space (play or pause),
-// Left/Right (a frame back or forward) and Home/End (first or last frame)
-// when no control has the keyboard focus, so typing into an entry never
-// moves the take.
+// (they act when no menu bar is shown), and typedKey's keys when no
+// control has the keyboard focus, so typing into an entry never moves the
+// take.
 func (w *Window) installKeys() {
 	c := w.win.Canvas()
 	c.AddShortcut(shortcutNew, func(fyne.Shortcut) { w.newProject() })
@@ -140,7 +139,9 @@ func (w *Window) installKeys() {
 	c.SetOnTypedKey(w.typedKey)
 }
 
-// typedKey handles a key no focused control took.
+// typedKey handles a key no focused control took: Space plays or pauses,
+// Left and Right step a frame, Page Up and Page Down a timecode second,
+// Home and End go to the first and last frame.
 func (w *Window) typedKey(k *fyne.KeyEvent) {
 	if w.win.Canvas().Focused() != nil {
 		return // an entry or other control has the keyboard
@@ -154,6 +155,13 @@ func (w *Window) typedKey(k *fyne.KeyEvent) {
 	case fyne.KeyRight:
 		w.stopPlayback()
 		w.setFrame(w.frame + 1)
+	case fyne.KeyPageUp, fyne.KeyPageDown:
+		step := int((w.rate().Num + w.rate().Den/2) / w.rate().Den) // a timecode second
+		if k.Name == fyne.KeyPageUp {
+			step = -step
+		}
+		w.stopPlayback()
+		w.setFrame(w.frame + step)
 	case fyne.KeyHome:
 		w.stopPlayback()
 		w.setFrame(0)

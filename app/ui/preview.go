@@ -1,6 +1,8 @@
 package ui
 
 import (
+	"strconv"
+
 	"fyne.io/fyne/v2"
 	"fyne.io/fyne/v2/container"
 	"fyne.io/fyne/v2/theme"
@@ -62,8 +64,7 @@ func newPreviewPane(w *Window) *previewPane {
 	p.toolbar = container.NewHBox(
 		p.views[0], p.views[1], p.views[2], p.views[3],
 		widget.NewSeparator(),
-		widget.NewLabel("onion skin"), p.onion,
-		widget.NewSeparator(),
+		p.onion,
 		p.arc, p.axes, p.grid,
 		widget.NewSeparator(),
 		p.reset,
@@ -72,12 +73,13 @@ func newPreviewPane(w *Window) *previewPane {
 	return p
 }
 
-// onionLabel names an onion-skin choice: "off", "±1", ... "±6".
+// onionLabel names an onion-skin choice: "no onion skin", "onion ±1",
+// ... "onion ±6" (frames before and after the current one).
 func onionLabel(n int) string {
 	if n == 0 {
-		return "off"
+		return "no onion skin"
 	}
-	return "±" + string(rune('0'+n))
+	return "onion ±" + strconv.Itoa(n)
 }
 
 // setView looks from view v and frames the take.

@@ -48,7 +48,7 @@ func verdictReport(res editor.Result) report {
 	add("centre of mass", "(%s, %s, %s) m", fixed(mp.CM.X), fixed(mp.CM.Y), fixed(mp.CM.Z))
 	for i, name := range axisNames {
 		a := mp.Axes[i]
-		add(name+" axis", "I%d = %s kg·m²  along (%.2f, %.2f, %.2f)", i+1, sig(mp.Moments[i]), a.X, a.Y, a.Z)
+		add(name+" axis", "I%d = %s kg·m²  along (%s, %s, %s)", i+1, sig(mp.Moments[i]), dir2(a.X), dir2(a.Y), dir2(a.Z))
 	}
 	add("symmetry", "%s (%s)", v.Symmetry, ordering(v.Symmetry))
 	add("excursion", "%s° from the %s axis", sig(v.ExcursionDeg), v.Circles)
@@ -203,6 +203,15 @@ func sig3(x float64) string {
 		d = 0
 	}
 	return strconv.FormatFloat(x, 'f', d, 64)
+}
+
+// dir2 formats a direction component to two decimals, never "-0.00".
+func dir2(x float64) string {
+	s := strconv.FormatFloat(x, 'f', 2, 64)
+	if s == "-0.00" {
+		s = "0.00"
+	}
+	return s
 }
 
 // fixed formats a coordinate in metres to the millimetre.

@@ -32,6 +32,9 @@ type Window struct {
 	imperial bool
 	syncing  int  // > 0 while controls are set from the document: their callbacks do nothing
 	closed   bool // the window is gone; late results are dropped
+	// synchronous is set for tests: recomputes run on the UI goroutine
+	// and nothing is deferred through fyne.Do.
+	synchronous bool
 
 	requested uint64        // sequence number of the last request
 	applied   uint64        // sequence number of the last result applied
@@ -159,6 +162,7 @@ func newWindowWith(a fyne.App, doc *project.Document, path string, opt windowOpt
 	}
 	w := &Window{app: a, ed: ed, thr: physics.DefaultThresholds()}
 	w.play.loop = true
+	w.synchronous = opt.synchronous
 	if opt.synchronous {
 		w.comp = &syncComputer{deliver: w.apply}
 	} else {
@@ -207,9 +211,13 @@ func (w *Window) build() {
 		container.NewTabItem("Prop", scrollColumn(w.props.content)),
 		container.NewTabItem("Throw", scrollColumn(w.throw.content)),
 	)
-	left := sized(tabs, 400, 300)
-	right := sized(scrollColumn(w.verdict.content), 370, 300)
-	centre := container.NewBorder(w.view.toolbar, w.timeline.content, nil, nil, w.view.preview)
+	left := sized(tabs, 430, 300)
+	right := sized(scrollColumn(w.verdict.content), 360, 300)
+	// The toolbar scrolls sideways rather than widen the window when the
+	// window is narrow.
+	bar := container.NewHScroll(w.view.toolbar)
+	bar.SetMinSize(fyne.NewSize(0, w.view.toolbar.MinSize().Height))
+	centre := container.NewBorder(bar, w.timeline.content, nil, nil, w.view.preview)
 	w.win.SetContent(container.NewBorder(nil, nil, left, right, centre))
 	w.installKeys()
 }
