@@ -54,6 +54,7 @@ func (w *Window) afterReplace(preset string) {
 	w.props.selected = 0
 	w.frame = 0
 	w.editErr = nil
+	w.reframe = true
 	w.syncControls()
 	w.menu.updateRecent()
 }
@@ -81,14 +82,16 @@ func (w *Window) openDialog() {
 	}, nil)
 }
 
-// startIn points a file dialog at the folder of the project's file, if it
-// has one.
+// startIn points a file dialog at the folder of the project's file, else
+// of the most recent project, else the working folder.
 func (w *Window) startIn(d interface{ SetLocation(fyne.ListableURI) }) {
 	dir := ""
 	if p := w.ed.Path(); p != "" {
 		dir = filepath.Dir(p)
 	} else if files := w.recent.Existing(); len(files) > 0 {
 		dir = filepath.Dir(files[0])
+	} else if wd, err := os.Getwd(); err == nil {
+		dir = wd
 	}
 	if dir == "" {
 		return

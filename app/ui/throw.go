@@ -190,7 +190,7 @@ func newThrowPanel(w *Window) *throwPanel {
 	}
 	t.fps = widget.NewSelect(rateLabels(), t.pickRate)
 	t.custom = widget.NewEntry()
-	t.custom.SetPlaceHolder("24000/1001")
+	t.custom.SetPlaceHolder("a rate such as 12.5 or 24000/1001, then Enter")
 	t.custom.OnSubmitted = t.typeRate
 	t.custom.Hide()
 	t.twos = widget.NewRadioGroup([]string{timingOnOnes, timingOnTwos}, func(string) {
@@ -284,7 +284,9 @@ func (t *throwPanel) pickRate(s string) {
 		return
 	}
 	if s == customRate {
+		t.custom.SetText(frameRateText(t.w.ed.Doc().Throw.FPS))
 		t.custom.Show()
+		t.w.win.Canvas().Focus(t.custom)
 		return
 	}
 	t.custom.Hide()
@@ -299,16 +301,16 @@ func (t *throwPanel) pickRate(s string) {
 	}
 }
 
-// typeRate sets a typed frame rate: a whole number, a decimal or a ratio
-// such as 24000/1001. Text that is not a rate is kept, so the verdict
-// panel names throw.fps and says what is wrong.
+// typeRate sets a typed frame rate: a number ("12.5"; the rounded NTSC
+// names such as 29.97 mean their exact 1000/1001 rates when the project
+// is built) or a ratio such as 24000/1001, kept as the user wrote it.
+// Text that is not a rate is kept too, so that the verdict panel names
+// throw.fps and says what is wrong.
 func (t *throwPanel) typeRate(text string) {
 	text = strings.TrimSpace(text)
 	t.w.editAndSync("Change frame rate to "+text, func(d *project.Document) error {
-		if x, err := strconv.ParseFloat(text, 64); err == nil && x == math.Trunc(x) {
+		if x, err := strconv.ParseFloat(text, 64); err == nil && !math.IsInf(x, 0) && !math.IsNaN(x) {
 			d.Throw.FPS = &project.FrameRate{Number: x}
-		} else if r, err := physics.ParseRate(text); err == nil {
-			d.Throw.FPS = frameRateOf(r)
 		} else {
 			d.Throw.FPS = &project.FrameRate{Text: text}
 		}

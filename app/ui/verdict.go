@@ -104,7 +104,7 @@ func explain(v physics.Verdict, s physics.Spin, mp *physics.MassProps, thr physi
 		}
 		switch v.Motion {
 		case physics.Wobbling:
-			return "It wobbles.", fmt.Sprintf("It wobbles: the prop is %s, symmetric about its %s axis (%s), and you spun it %s, %s° off that axis. "+
+			return "It wobbles.", fmt.Sprintf("It wobbles: the prop is %s, symmetric about its %s axis (%s), and you spun it %s, which leaves its angular momentum %s° off that axis. "+
 				"The symmetry axis circles round steadily, %s wobbles for every turn; a symmetric prop never tumbles.",
 				shape, axis, order, asked, sig(v.ExcursionDeg), sig3(v.WobblesPerTurn))
 		case physics.Spinning:
@@ -118,12 +118,16 @@ func explain(v physics.Verdict, s physics.Spin, mp *physics.MassProps, thr physi
 	}
 	switch v.Motion {
 	case physics.Tumbling:
-		if s.Axis == physics.Middle {
+		near, _ := nearestAxis(s, mp)
+		switch {
+		case s.Axis == physics.Middle:
 			why = fmt.Sprintf("It tumbles: you spun it about its middle axis (%s), which is unstable — small errors grow and it flips end over end.", order)
 			if s.Tilt != 0 {
 				why += fmt.Sprintf(" Here the small error is the %s° tilt toward the %s axis.", sig(math.Abs(s.Tilt)*180/math.Pi), s.TiltToward)
 			}
-		} else {
+		case near == physics.Middle:
+			why = fmt.Sprintf("It tumbles: you spun it %s (%s), which is unstable — small errors grow and it flips end over end.", asked, order)
+		default:
 			why = fmt.Sprintf("It tumbles: you spun it %s, too far from the %s axis to stay near it (%s). The turning axis swings %s° away, past the middle axis, so the prop flips end over end.",
 				asked, v.Circles, order, sig(v.ExcursionDeg))
 		}
@@ -153,6 +157,19 @@ func spinWords(s physics.Spin, mp *physics.MassProps) string {
 		}
 		return w
 	}
+	best, ang := nearestAxis(s, mp)
+	if ang < 0.05 {
+		return "about its " + best.String() + " axis"
+	}
+	return fmt.Sprintf("about a direction %s° from its %s axis", sig(ang), best)
+}
+
+// nearestAxis returns the principal axis nearest the spin direction and
+// the angle to it in degrees (a named axis is its own, tilt and all).
+func nearestAxis(s physics.Spin, mp *physics.MassProps) (physics.Axis, float64) {
+	if s.Axis != physics.Free {
+		return s.Axis, math.Abs(s.Tilt) * 180 / math.Pi
+	}
 	u := r3.Unit(s.Vector)
 	best, bestCos := physics.Least, -1.0
 	for i, a := range mp.Axes {
@@ -160,11 +177,7 @@ func spinWords(s physics.Spin, mp *physics.MassProps) string {
 			best, bestCos = physics.Axis(i), c
 		}
 	}
-	ang := math.Acos(math.Min(1, bestCos)) * 180 / math.Pi
-	if ang < 0.05 {
-		return "about its " + best.String() + " axis"
-	}
-	return fmt.Sprintf("about a direction %s° from its %s axis", sig(ang), best)
+	return best, math.Acos(math.Min(1, bestCos)) * 180 / math.Pi
 }
 
 // ordering writes the order of the principal moments for symmetry s.

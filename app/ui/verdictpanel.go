@@ -86,7 +86,14 @@ func (v *verdictPanel) show(res editor.Result, editErr error) {
 	v.headline.SetText(r.Headline)
 	v.why.SetText(r.Why)
 	if r.Err != "" {
-		v.problem.SetText("Cannot fly this project: " + r.Err)
+		text := "Cannot fly this project: " + r.Err
+		switch {
+		case res.Scene == nil && r.Headline != "":
+			text += "\nThe picture and the numbers below are from the last version that flew."
+		case res.Scene != nil && v.w.good.Take != nil:
+			text += "\nThe picture is from the last version that flew."
+		}
+		v.problem.SetText(text)
 		v.problem.Show()
 	} else {
 		v.problem.Hide()

@@ -41,6 +41,7 @@ type Window struct {
 	result    editor.Result // the last result applied (it may carry an error)
 	good      editor.Result // the last result with a take: what the preview shows
 	editErr   error         // an edit the editor refused (such as a number JSON cannot hold)
+	reframe   bool          // frame the next take whole: a new project is open
 
 	frame int // current frame of the take, 0 = release
 	play  playback
@@ -302,6 +303,10 @@ func (w *Window) apply(res editor.Result) {
 		w.props.setResult(res)
 		w.throw.setResult(res)
 		w.showFrame()
+		if w.reframe {
+			w.reframe = false
+			w.view.preview.ResetCamera()
+		}
 	}
 	w.verdict.show(res, w.editErr)
 }
