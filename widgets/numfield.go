@@ -55,6 +55,13 @@ type NumberField struct {
 
 	quiet bool   // set while the field moves its own slider
 	shown string // the text the field last wrote into the entry
+
+	// span > 1 narrows a logarithmic slider to [value/span, value*span]
+	// (inside [min, max]), re-centred whenever the value is shown, so that
+	// a drag changes a dimension by a useful step; typing still reaches
+	// the whole range. winLo and winHi are the slider's ends now.
+	span         float64
+	winLo, winHi float64
 }
 
 // NewNumberField returns a field for quantity q labelled label, with range
@@ -194,16 +201,37 @@ func (f *NumberField) shownUnit() unit { return f.q.display(f.imperial, f.max) }
 // logScale reports whether the slider is logarithmic now.
 func (f *NumberField) logScale() bool { return f.log && f.min > 0 && f.max > f.min }
 
+// SetSpan narrows a logarithmic slider to a factor of span either side of
+// the value (span <= 1 turns it off: the slider covers the whole range).
+// The window re-centres each time the value is shown, never during a drag.
+func (f *NumberField) SetSpan(span float64) {
+	f.span = span
+	f.show()
+}
+
+// window updates the slider's ends for the value now shown.
+func (f *NumberField) window() {
+	f.winLo, f.winHi = f.min, f.max
+	if f.span > 1 && f.logScale() && f.value > 0 {
+		f.winLo = math.Max(f.min, f.value/f.span)
+		f.winHi = math.Min(f.max, f.value*f.span)
+		if !(f.winHi > f.winLo) {
+			f.winLo, f.winHi = f.min, f.max
+		}
+	}
+}
+
 // position returns the slider position of value v, 0 to sliderSteps.
 func (f *NumberField) position(v float64) float64 {
+	lo, hi := f.winLo, f.winHi
 	var t float64
 	switch {
-	case !(f.max > f.min):
+	case !(hi > lo):
 		t = 0
 	case f.logScale():
-		t = math.Log(v/f.min) / math.Log(f.max/f.min)
+		t = math.Log(v/lo) / math.Log(hi/lo)
 	default:
-		t = (v - f.min) / (f.max - f.min)
+		t = (v - lo) / (hi - lo)
 	}
 	if math.IsNaN(t) {
 		t = 0
@@ -216,16 +244,17 @@ func (f *NumberField) position(v float64) float64 {
 // kept inside the range.
 func (f *NumberField) valueAt(pos float64) float64 {
 	t := math.Max(0, math.Min(1, pos/sliderSteps))
+	lo, hi := f.winLo, f.winHi
 	var v float64
 	switch {
 	case pos >= sliderSteps:
-		v = f.max
+		v = hi
 	case pos <= 0:
-		v = f.min
+		v = lo
 	case f.logScale():
-		v = f.min * math.Pow(f.max/f.min, t)
+		v = lo * math.Pow(hi/lo, t)
 	default:
-		v = f.min + t*(f.max-f.min)
+		v = lo + t*(hi-lo)
 	}
 	u := f.shownUnit()
 	if r, err := parseTyped(formatValue(v, f.q, u), f.q, u); err == nil && r >= f.min && r <= f.max {
@@ -239,6 +268,7 @@ func (f *NumberField) valueAt(pos float64) float64 {
 func (f *NumberField) show() {
 	u := f.shownUnit()
 	f.shown = formatValue(f.value, f.q, u)
+	f.window()
 	f.quiet = true
 	f.entry.SetText(f.shown)
 	f.slider.SetValue(f.position(f.value))

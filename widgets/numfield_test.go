@@ -229,3 +229,35 @@ func TestNumberField_Golden(t *testing.T) {
 	typeIn(f, "abc", fyne.KeyReturn)
 	test.AssertImageMatches(t, "numfield/imperial_error.png", w.Canvas().Capture())
 }
+
+// TestNumberField_Span_NarrowsSliderAroundValue: with a span of 3 a log
+// slider runs from value/3 to value*3 (the middle is the value itself) and
+// re-centres when the value is shown again, while typing still reaches the
+// whole range.
+func TestNumberField_Span_NarrowsSliderAroundValue(t *testing.T) {
+	f, _, got := fieldWindow(t, Length, 0.001, 2)
+	f.SetLog(true)
+	f.SetSpan(3)
+	f.SetValue(0.12)
+	if math.Abs(f.slider.Value-sliderSteps/2) > 1e-9 {
+		t.Errorf("value at slider %v, want the middle %v", f.slider.Value, sliderSteps/2.0)
+	}
+	if v := f.valueAt(sliderSteps); math.Abs(v-0.36) > 1e-9 {
+		t.Errorf("slider end = %v, want 0.36", v)
+	}
+	if v := f.valueAt(0); math.Abs(v-0.04) > 1e-9 {
+		t.Errorf("slider start = %v, want 0.04", v)
+	}
+	typeIn(f, "1.5", fyne.KeyReturn)
+	if len(*got) != 1 || (*got)[0].v != 1.5 {
+		t.Fatalf("typed 1.5: %v", *got)
+	}
+	// Shown again, the window follows: 1.5 m is now mid-slider, capped at 2 m.
+	if v := f.valueAt(sliderSteps); v != 2 {
+		t.Errorf("after re-centring the slider end = %v, want the 2 m limit", v)
+	}
+	f.SetSpan(0)
+	if v := f.valueAt(0); v != 0.001 {
+		t.Errorf("span off: slider start %v, want 0.001", v)
+	}
+}

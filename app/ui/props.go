@@ -219,6 +219,10 @@ func (p *propPanel) buildPart(key partKey) {
 		})
 	})
 
+	// A dimension's slider spans a factor of dimensionSpan either side of
+	// its value, so a drag trims the part; typing reaches 1 mm to 2 m.
+	const dimensionSpan = 3
+
 	var dims []fyne.CanvasObject
 	for _, dm := range shapeDimensions(key.shape) {
 		dm := dm
@@ -229,6 +233,7 @@ func (p *propPanel) buildPart(key partKey) {
 			})
 		})
 		f.SetLog(true)
+		f.SetSpan(dimensionSpan)
 		dims = append(dims, f)
 	}
 
@@ -260,6 +265,7 @@ func (p *propPanel) buildPart(key partKey) {
 		})
 	}
 	amount.SetLog(true)
+	amount.SetSpan(dimensionSpan)
 	if key.shape == "shell" {
 		p.massMode.Disable()
 	}

@@ -4,7 +4,9 @@
 package main
 
 import (
+	"errors"
 	"os"
+	"runtime"
 
 	"fyne.io/fyne/v2/app"
 
@@ -13,7 +15,16 @@ import (
 	_ "propflight/internal/locale" // before Fyne reads the locale: see its doc
 )
 
+// errNoDisplay explains a window that cannot open, in place of the
+// graphics library's own error.
+var errNoDisplay = errors.New("no display to open the window on (DISPLAY is not set): run it on a desktop or under Xvfb, or use propflight check")
+
 func main() {
-	openWindow := func() error { return ui.Run(app.NewWithID("dev.propflight.app"), "") }
+	openWindow := func() error {
+		if runtime.GOOS == "linux" && os.Getenv("DISPLAY") == "" && os.Getenv("WAYLAND_DISPLAY") == "" {
+			return errNoDisplay
+		}
+		return ui.Run(app.NewWithID("dev.propflight.app"), "")
+	}
 	os.Exit(cli.Run(os.Args[1:], os.Stdout, os.Stderr, openWindow))
 }
