@@ -23,6 +23,9 @@ const (
 	MaxOnion   = 24   // most onion-skin frames on each side
 )
 
+// ErrCancelled is returned by an export stopped through its Cancel channel.
+var ErrCancelled = errors.New("export: cancelled")
+
 // PNGOptions control WritePNGSequence.
 type PNGOptions struct {
 	Width, Height int       // image size in pixels, each MinPNGSize to MaxPNGSize
@@ -37,6 +40,10 @@ type PNGOptions struct {
 	// laying the sequence over footage in a compositing tool; otherwise
 	// the background is the screen palette's dark slate.
 	Transparent bool
+	// Cancel, when not nil, stops the sequence with ErrCancelled before the
+	// next image once it is closed; the images already written stay (each
+	// is whole).
+	Cancel <-chan struct{}
 	// Guides adds the centre-of-mass arc with a tick at every frame and
 	// the ground grid; without it only the prop (and its onion skin) is
 	// drawn.
@@ -121,6 +128,13 @@ func WritePNGSequence(dir string, in Input, opt PNGOptions, progress func(done, 
 	img := image.NewRGBA(image.Rect(0, 0, opt.Width, opt.Height)) // reused: each file is encoded before the next frame
 	var paths []string
 	for i := 0; i < len(frames); i += step {
+		if opt.Cancel != nil {
+			select {
+			case <-opt.Cancel:
+				return paths, ErrCancelled
+			default:
+			}
+		}
 		sc.Frame = i
 		d := wire.Draw(cam, sc)
 		painter.Paint(img, d, pal) // fills the background first

@@ -1,6 +1,7 @@
 package export
 
 import (
+	"errors"
 	"fmt"
 	"image"
 	"image/png"
@@ -217,4 +218,15 @@ func BenchmarkWritePNGSequence(b *testing.B) {
 		}
 	}
 	b.ReportMetric(float64(len(in.Take.Frames)), "frames/op")
+}
+
+func TestWritePNGSequence_Cancel(t *testing.T) {
+	in := panInput(t, 2)
+	cancel := make(chan struct{})
+	close(cancel)
+	dir := t.TempDir()
+	files, err := WritePNGSequence(dir, in, PNGOptions{Width: 32, Height: 32, Cancel: cancel}, nil)
+	if !errors.Is(err, ErrCancelled) || len(files) != 0 {
+		t.Errorf("cancelled before the start: %d files, %v", len(files), err)
+	}
 }

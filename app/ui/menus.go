@@ -48,6 +48,8 @@ func newMenus(w *Window) *menus {
 		item("Save", shortcutSave, func() { w.save(nil) }),
 		item("Save As…", shortcutSaveA, func() { w.saveAs(nil) }),
 		fyne.NewMenuItemSeparator(),
+		w.exportMenu(),
+		fyne.NewMenuItemSeparator(),
 		quit,
 	)
 	m.undo = item("Undo", &fyne.ShortcutUndo{}, w.undo)

@@ -1,0 +1,217 @@
+package ui
+
+import (
+	"bytes"
+	"errors"
+	"fmt"
+	"io"
+	"os"
+	"path/filepath"
+	"strings"
+
+	"fyne.io/fyne/v2"
+	"fyne.io/fyne/v2/container"
+	"fyne.io/fyne/v2/dialog"
+	"fyne.io/fyne/v2/storage"
+	"fyne.io/fyne/v2/widget"
+
+	"propflight/app/editor"
+	"propflight/app/export"
+	"propflight/app/fsutil"
+	"propflight/app/sheet"
+)
+
+// Exports from the window: the timing sheet, the CSV take, glTF and a PNG
+// sequence of the take the window shows (the last good result). Each runs
+// off the UI goroutine behind a progress bar with a Cancel button; files
+// are written atomically, so a cancelled or failed export leaves nothing
+// half-written.
+
+// exportJob is one export: what it is called, the file extension it
+// writes (empty for a folder) and the work, which reports progress and
+// stops early when cancel closes.
+type exportJob struct {
+	title string
+	ext   string
+	work  func(path string, res editor.Result, progress func(done, total int), cancel <-chan struct{}) (string, error)
+}
+
+// errExportCancelled is the work's answer to a Cancel press.
+var errExportCancelled = errors.New("cancelled")
+
+// exportMenu returns the File menu's Export submenu.
+func (w *Window) exportMenu() *fyne.MenuItem {
+	item := func(j exportJob) *fyne.MenuItem { return fyne.NewMenuItem(j.title+"…", func() { w.startExport(j) }) }
+	m := fyne.NewMenuItem("Export", nil)
+	m.ChildMenu = fyne.NewMenu("",
+		item(w.sheetJob(sheet.PaperA4)),
+		item(w.sheetJob(sheet.PaperLetter)),
+		item(w.csvJob()),
+		item(gltfJob()),
+		item(w.pngJob()),
+	)
+	return m
+}
+
+func (w *Window) sheetJob(paper string) exportJob {
+	return exportJob{title: "Timing Sheet (" + strings.ToUpper(paper[:1]) + paper[1:] + ")", ext: ".pdf",
+		work: func(path string, res editor.Result, progress func(int, int), cancel <-chan struct{}) (string, error) {
+			thr := res.Thresholds
+			in := sheet.Input{Scene: res.Scene, Verdict: res.Verdict, Take: res.Take, Thresholds: &thr}
+			var buf bytes.Buffer
+			err := sheet.Write(&buf, in, sheet.Options{Paper: paper, Twos: w.throw.onTwos(), Progress: progress, Cancel: cancel})
+			if errors.Is(err, sheet.ErrCancelled) {
+				return "", errExportCancelled
+			}
+			if err != nil {
+				return "", err
+			}
+			return "timing sheet", writeBytes(path, buf.Bytes())
+		}}
+}
+
+func (w *Window) csvJob() exportJob {
+	return exportJob{title: "Take as CSV", ext: ".csv",
+		work: func(path string, res editor.Result, _ func(int, int), _ <-chan struct{}) (string, error) {
+			write := export.WriteCSV
+			if w.throw.onTwos() {
+				write = export.WriteCSVTwos
+			}
+			return "CSV take", fsutil.WriteAtomic(path, func(f io.Writer) error { return write(f, res.Take) })
+		}}
+}
+
+func gltfJob() exportJob {
+	return exportJob{title: "Take as glTF (GLB)", ext: ".glb",
+		work: func(path string, res editor.Result, _ func(int, int), _ <-chan struct{}) (string, error) {
+			in := exportInput(res)
+			return "glTF animation", fsutil.WriteAtomic(path, func(f io.Writer) error {
+				return export.WriteGLTF(f, in, export.GLTFOptions{Binary: true})
+			})
+		}}
+}
+
+func (w *Window) pngJob() exportJob {
+	return exportJob{title: "Take as PNG Frames", ext: "",
+		work: func(dir string, res editor.Result, progress func(int, int), cancel <-chan struct{}) (string, error) {
+			view := w.view.preview.View()
+			opt := export.PNGOptions{Width: 1280, Height: 720, View: view, Twos: w.throw.onTwos(), Transparent: true, Cancel: cancel}
+			files, err := export.WritePNGSequence(dir, exportInput(res), opt, progress)
+			if errors.Is(err, export.ErrCancelled) {
+				return "", errExportCancelled
+			}
+			if err != nil {
+				return "", err
+			}
+			return fmt.Sprintf("%d PNG frames (%s view, 1280x720, transparent)", len(files), view), nil
+		}}
+}
+
+func exportInput(res editor.Result) export.Input {
+	sc := res.Scene
+	return export.Input{Name: sc.Name, Prop: &sc.Prop, Mass: &sc.Mass, Throw: &sc.Throw, Take: res.Take}
+}
+
+func writeBytes(path string, b []byte) error {
+	return fsutil.WriteAtomic(path, func(f io.Writer) error { _, err := f.Write(b); return err })
+}
+
+// startExport asks where to write, then runs the job.
+func (w *Window) startExport(j exportJob) {
+	if w.good.Take == nil {
+		w.showError("Nothing to export", errors.New("there is no take yet: fix the project's error first"))
+		return
+	}
+	res := w.good
+	name := safeFileName(projectName(w.ed.Doc(), w.ed.Path()))
+	if j.ext == "" {
+		d := dialog.NewFolderOpen(func(u fyne.ListableURI, err error) {
+			if err != nil {
+				w.showError("Cannot export", err)
+				return
+			}
+			if u != nil {
+				w.runExport(j, filepath.Join(u.Path(), name+"-frames"), res)
+			}
+		}, w.win)
+		w.startIn(d)
+		d.Resize(fileDialogSize)
+		d.Show()
+		return
+	}
+	d := dialog.NewFileSave(func(wc fyne.URIWriteCloser, err error) {
+		if err != nil {
+			w.showError("Cannot export", err)
+			return
+		}
+		if wc == nil {
+			return
+		}
+		path := wc.URI().Path()
+		wc.Close() // written atomically by the job, not through wc
+		if !strings.EqualFold(filepath.Ext(path), j.ext) {
+			os.Remove(path) // the empty file the dialog made
+			path += j.ext
+		}
+		w.runExport(j, path, res)
+	}, w.win)
+	d.SetFileName(name + j.ext)
+	d.SetFilter(storage.NewExtensionFileFilter([]string{j.ext}))
+	w.startIn(d)
+	d.Resize(fileDialogSize)
+	d.Show()
+}
+
+// runExport runs the job's work on its own goroutine behind a progress
+// dialog with Cancel, and reports the outcome. In a synchronous (test)
+// window it runs inline.
+func (w *Window) runExport(j exportJob, path string, res editor.Result) {
+	bar := widget.NewProgressBar()
+	cancel := make(chan struct{})
+	cancelled := false
+	var d dialog.Dialog
+	stop := widget.NewButton("Cancel", func() {
+		if !cancelled {
+			cancelled = true
+			close(cancel)
+		}
+	})
+	label := widget.NewLabel("Writing " + filepath.Base(path) + "…")
+	d = dialog.NewCustomWithoutButtons(j.title, sized(container.NewVBox(label, bar, stop), 360, 0), w.win)
+	done := func(what string, err error) {
+		d.Hide()
+		switch {
+		case errors.Is(err, errExportCancelled):
+			w.lastDialog = &shownDialog{title: "Export cancelled", message: path}
+		case err != nil:
+			w.showError("Export failed", fmt.Errorf("%s: %w", path, err))
+		default:
+			w.showInfo("Exported", fmt.Sprintf("Wrote the %s to %s.", what, path))
+		}
+	}
+	if w.synchronous {
+		what, err := j.work(path, res, func(int, int) {}, cancel)
+		done(what, err)
+		return
+	}
+	d.Show()
+	go func() {
+		what, err := j.work(path, res, func(n, total int) {
+			fyne.Do(func() {
+				if total > 0 {
+					bar.SetValue(float64(n) / float64(total))
+				}
+			})
+		}, cancel)
+		fyne.Do(func() { done(what, err) })
+	}()
+}
+
+// showInfo shows a short message with an OK button.
+func (w *Window) showInfo(title, msg string) {
+	text := widget.NewLabel(msg)
+	text.Wrapping = fyne.TextWrapWord
+	d := dialog.NewCustom(title, "OK", sized(text, 420, 0), w.win)
+	w.lastDialog = &shownDialog{title: title, message: msg, d: d}
+	d.Show()
+}
