@@ -254,3 +254,23 @@ func (p *Part) LocalSupport(u r3.Vec) float64 {
 	}
 	return 0
 }
+
+// Reach returns the largest distance of any point of the part from its
+// centre of mass, m: a bound on LocalSupport over unit directions.
+func (p *Part) Reach() float64 {
+	switch p.Shape {
+	case Box:
+		return r3.Norm(p.Size) / 2
+	case Cylinder, Tube:
+		return math.Hypot(p.Radius, p.Length/2)
+	case Sphere, Shell:
+		return p.Radius
+	case Ellipsoid:
+		return math.Max(p.SemiAxes.X, math.Max(p.SemiAxes.Y, p.SemiAxes.Z))
+	case Cone:
+		return math.Max(3*p.Height/4, math.Hypot(p.Radius, p.Height/4))
+	case Torus:
+		return p.Radius + p.TubeRadius
+	}
+	return 0
+}

@@ -190,3 +190,28 @@ func TestPartValidate_Errors(t *testing.T) {
 		}
 	}
 }
+
+// TestReach_BoundsSupport: no direction's support exceeds Reach, and the
+// sampled boundary comes within the sampling error of it.
+func TestReach_BoundsSupport(t *testing.T) {
+	id := Identity()
+	parts := []Part{
+		box(1, 0.3, 0.2, 0.1),
+		{Shape: Cylinder, Radius: 0.1, Length: 0.4, Mass: 1, Orient: id},
+		{Shape: Tube, Radius: 0.1, InnerRadius: 0.05, Length: 0.2, Mass: 1, Orient: id},
+		{Shape: Sphere, Radius: 0.15, Mass: 1, Orient: id},
+		{Shape: Ellipsoid, SemiAxes: r3.Vec{X: 0.1, Y: 0.2, Z: 0.3}, Mass: 1, Orient: id},
+		{Shape: Cone, Radius: 0.1, Height: 0.3, Mass: 1, Orient: id},
+		{Shape: Cone, Radius: 0.3, Height: 0.1, Mass: 1, Orient: id},
+		{Shape: Torus, Radius: 0.2, TubeRadius: 0.05, Mass: 1, Orient: id},
+	}
+	for _, p := range parts {
+		far := 0.0
+		for _, q := range samplePoints(&p, 200) {
+			far = math.Max(far, r3.Norm(q))
+		}
+		if r := p.Reach(); far > r+1e-12 || far < r-1e-3 {
+			t.Errorf("%v: Reach %g, farthest sampled point %g", p.Shape, r, far)
+		}
+	}
+}

@@ -48,6 +48,7 @@ type flight struct {
 	rot   rotor
 	qp    quat.Number // principal frame -> prop frame
 	parts []flightPart
+	reach float64 // no point of the prop is farther than this from its CM, m
 }
 
 type flightPart struct {
@@ -60,7 +61,9 @@ func newFlight(p *Prop, mp *MassProps, th *Throw) *flight {
 	f := &flight{th: th, rot: newRotor(mp.Moments), qp: FromMat(mp.PrincipalMat())}
 	for i := range p.Parts {
 		pt := &p.Parts[i]
-		f.parts = append(f.parts, flightPart{part: pt, offset: r3.Sub(pt.Position, mp.CM), orient: Normalize(pt.Orient)})
+		fp := flightPart{part: pt, offset: r3.Sub(pt.Position, mp.CM), orient: Normalize(pt.Orient)}
+		f.parts = append(f.parts, fp)
+		f.reach = math.Max(f.reach, r3.Norm(fp.offset)+pt.Reach())
 	}
 	return f
 }
@@ -138,7 +141,10 @@ func Simulate(p *Prop, mp *MassProps, th *Throw) (*Take, error) {
 			ta := t0 + float64(j)*h
 			tb := t0 + float64(j+1)*h
 			next := st.next(s)
-			if f.clearance(tb, next) <= 0 {
+			// The exact clearance only matters once the CM is within the
+			// prop's reach of the ground.
+			near := th.CMAt(tb).Y-f.reach <= th.GroundY
+			if near && f.clearance(tb, next) <= 0 {
 				tl := f.landingTime(ta, s, tb)
 				take.FlightTime = tl
 				take.LandingFrame = min(th.FPS.Frame(tl), len(take.Frames)-1)
