@@ -1,7 +1,10 @@
 // Package widgets holds Propflight's Fyne widgets: the wireframe preview of a
-// take (Preview), the frame strip with its marks (Timeline) and the slider
-// with a typed entry and unit (NumberField). The pictures come from the pure
-// renderer in widgets/wire; this package only adds the toolkit around it.
+// take (Preview), the frame strip with its marks (Timeline), the slider
+// with a typed entry and unit (NumberField), and reference footage with
+// the user's marks on it (FootageView, fed through the small FrameSource
+// interface so that this package never imports app). The pictures come
+// from the pure renderer in widgets/wire; this package only adds the
+// toolkit around it.
 //
 // Frames and units:
 //   - Values are SI inside (m, kg, kg/m^3, s, m/s, m/s^2) except where a

@@ -70,6 +70,9 @@ func (d *Document) Build() (*Scene, error) {
 	if err := sc.Throw.Validate(); err != nil {
 		return nil, b.wrap("", err)
 	}
+	if err := b.footage(d.Footage); err != nil {
+		return nil, err
+	}
 	return sc, nil
 }
 
@@ -275,19 +278,25 @@ func (b *builder) rate(fr *FrameRate) (physics.Rate, error) {
 	if fr == nil {
 		return DefaultFPS, nil
 	}
+	return b.rateAt("throw.fps", fr)
+}
+
+// rateAt converts the frame rate fr, written at field, to an exact rate of
+// at least 1 frame per second.
+func (b *builder) rateAt(field string, fr *FrameRate) (physics.Rate, error) {
 	text := fr.Text
 	if !fr.IsText() {
 		if !(fr.Number > 0) || math.IsInf(fr.Number, 0) {
-			return physics.Rate{}, b.fail("throw.fps", "must be positive")
+			return physics.Rate{}, b.fail(field, "must be positive")
 		}
 		text = strconv.FormatFloat(fr.Number, 'g', -1, 64)
 	}
 	r, err := physics.ParseRate(text)
 	if err != nil {
-		return physics.Rate{}, b.fail("throw.fps", "%s", err)
+		return physics.Rate{}, b.fail(field, "%s", err)
 	}
 	if r.Num < r.Den {
-		return physics.Rate{}, b.fail("throw.fps", "must be at least 1 frame per second")
+		return physics.Rate{}, b.fail(field, "must be at least 1 frame per second")
 	}
 	return r, nil
 }

@@ -14,6 +14,13 @@
 // (world +Y up, metres, kilograms, seconds) and validates everything,
 // giving a [Scene] ready for physics.Judge and physics.Simulate.
 //
+// The optional top-level "footage" object ([Footage]) names reference
+// footage and holds the user's marks on it, in the footage's image pixels
+// (origin top left, y down). Its path is relative to the project file's
+// folder ([Document.FootageDir], [Document.SetFootagePath]); Build checks
+// its values but the scene does not use it. Files without it load and save
+// exactly as before.
+//
 // Every problem is an [*Error] naming the file and the field as written in
 // the project file, for example
 //

@@ -29,6 +29,9 @@ func FuzzParse(f *testing.F) {
 	f.Add([]byte(withSpin(`{"axis": [1e-300, 0, 1e308], "tilt_deg": 1, "frames_per_turn": 1e-300}`)))
 	f.Add([]byte(`{"format": "propflight/v1", "prop": {"parts": [{"shape": "tube", "radius": 1, "inner_radius": 1, "length": 1e-6, "mass": 1e6}]}}`))
 	f.Add([]byte(`{"format": "propflight/v1", "prop": {"parts": [[[[[[[[`))
+	// A footage object with every field (testdata/footage.json is a seed too).
+	f.Add([]byte(withFootage(`{"path": "clip/", "fps": "24000/1001", "offset": -3, "overlay": true, "opacity": 0.6,
+		"marks": [{"frame": 3, "x": 412.5, "y": 300.25, "x2": 440, "y2": 290}, {"frame": 4, "x": 1e-7, "y": -0}]}`)))
 
 	f.Fuzz(func(t *testing.T, data []byte) {
 		doc, err := Parse("fuzz.json", data)

@@ -38,6 +38,9 @@ func Marshal(d *Document) ([]byte, error) {
 		e.key("throw")
 		e.throw(&d.Throw)
 	}
+	if d.Footage != nil {
+		e.footage(d.Footage)
+	}
 	e.close('}')
 	if e.err != nil {
 		return nil, e.err

@@ -216,7 +216,7 @@ func quoteShort(s string) string {
 }
 
 var (
-	documentKeys = []string{"format", "name", "prop", "throw"}
+	documentKeys = []string{"format", "name", "prop", "throw", "footage"}
 	propKeys     = []string{"parts"}
 	partKeys     = []string{"name", "shape", "size", "radius", "inner_radius", "length", "height", "tube_radius", "semi_axes", "mass", "density", "position", "rotation_deg"}
 	throwKeys    = []string{"fps", "gravity", "release_position", "release_velocity", "hang_time_s", "hang_frames", "distance", "heading_deg", "orientation_deg", "ground_y", "spin"}
@@ -265,6 +265,11 @@ func (p *parser) document(root *value) (*Document, error) {
 	}
 	if tv, ok := m["throw"]; ok {
 		if doc.Throw, err = p.throw(tv); err != nil {
+			return nil, err
+		}
+	}
+	if fv, ok := m["footage"]; ok {
+		if doc.Footage, err = p.footage(fv); err != nil {
 			return nil, err
 		}
 	}
@@ -366,20 +371,8 @@ func (p *parser) throw(v *value) (Throw, error) {
 	}
 	var th Throw
 	if fv, ok := m["fps"]; ok {
-		switch fv.kind {
-		case kindNumber:
-			x, err := p.number(fv, "throw.fps")
-			if err != nil {
-				return Throw{}, err
-			}
-			th.FPS = &FrameRate{Number: x}
-		case kindString:
-			if strings.TrimSpace(fv.text) == "" {
-				return Throw{}, p.fail("throw.fps", "must not be empty: write a number or a string such as \"24000/1001\"")
-			}
-			th.FPS = &FrameRate{Text: fv.text}
-		default:
-			return Throw{}, p.fail("throw.fps", "must be a number or a string such as \"24000/1001\"")
+		if th.FPS, err = p.rateValue(fv, "throw.fps"); err != nil {
+			return Throw{}, err
 		}
 	}
 	for _, f := range []struct {

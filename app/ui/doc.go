@@ -1,6 +1,11 @@
-// Package ui is Propflight's desktop window (Fyne): the prop's parts and
-// the throw on the left, the wireframe preview of the take in the centre
-// with the timeline under it, and the verdict on the right.
+// Package ui is Propflight's desktop window (Fyne): the prop's parts, the
+// throw and the reference footage on the left, the wireframe preview of
+// the take in the centre (with the footage beside it once a clip is
+// loaded) and the timeline under it, and the verdict on the right.
+//
+// Footage (footage.go) follows the take by time, so clips at another
+// frame rate line up; clicks on it are marks stored in the project, and
+// the fit of the marks sets the throw's release velocity and spin rate.
 //
 // The window owns an editor.Editor (the open project, undo and redo, the
 // unsaved-changes flag) and an editor.Worker. Every control edits the

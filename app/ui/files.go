@@ -53,6 +53,8 @@ func (w *Window) afterReplace(preset string) {
 	w.props.showPreset(preset)
 	w.props.selected = 0
 	w.frame = 0
+	w.footage.takeFrame = -1
+	w.footage.clearFit()
 	w.editErr = nil
 	w.reframe = true
 	w.syncControls()
@@ -178,6 +180,7 @@ func safeFileName(name string) string {
 // saveTo saves the project at path atomically and reports success; a
 // failure shows an error dialog and leaves the old file whole.
 func (w *Window) saveTo(path string) bool {
+	w.rebaseFootage(path)
 	if err := w.ed.Save(path); err != nil {
 		w.showError("Could not save "+filepath.Base(path), err)
 		return false

@@ -148,6 +148,12 @@ func (w *Window) typedKey(k *fyne.KeyEvent) {
 	if w.win.Canvas().Focused() != nil {
 		return // an entry or other control has the keyboard
 	}
+	w.frameKey(k)
+}
+
+// frameKey acts on the keys of typedKey; the footage view hands it the
+// keys it does not use itself, so the take steps while marking.
+func (w *Window) frameKey(k *fyne.KeyEvent) {
 	switch k.Name {
 	case fyne.KeySpace:
 		w.togglePlayback()

@@ -51,7 +51,10 @@ type Window struct {
 	verdict  *verdictPanel
 	view     *previewPane
 	timeline *timelinePane
+	footage  *footagePane
 	menu     *menus
+	centre   *fyne.Container  // the preview, or the split of preview and footage
+	split    *container.Split // preview | footage
 
 	preset     string       // the preset the project came from, "" for a file or a new one
 	baseline   []byte       // the project as opened, loaded or started: what "unsaved" compares against when it has no file
@@ -205,12 +208,14 @@ func (w *Window) build() {
 	w.verdict = newVerdictPanel(w)
 	w.view = newPreviewPane(w)
 	w.timeline = newTimelinePane(w)
+	w.footage = newFootagePane(w)
 	w.menu = newMenus(w)
 	w.win.SetMainMenu(w.menu.main)
 
 	tabs := container.NewAppTabs(
 		container.NewTabItem("Prop", scrollColumn(w.props.content)),
 		container.NewTabItem("Throw", scrollColumn(w.throw.content)),
+		container.NewTabItem("Footage", scrollColumn(w.footage.content)),
 	)
 	left := sized(tabs, 430, 300)
 	right := sized(scrollColumn(w.verdict.content), 360, 300)
@@ -218,7 +223,7 @@ func (w *Window) build() {
 	// window is narrow.
 	bar := container.NewHScroll(w.view.toolbar)
 	bar.SetMinSize(fyne.NewSize(0, w.view.toolbar.MinSize().Height))
-	centre := container.NewBorder(bar, w.timeline.content, nil, nil, w.view.preview)
+	centre := container.NewBorder(bar, w.timeline.content, nil, nil, w.newCentre())
 	w.win.SetContent(container.NewBorder(nil, nil, left, right, centre))
 	w.installKeys()
 }
@@ -279,6 +284,7 @@ func (w *Window) syncControls() {
 	doc := w.ed.Doc()
 	w.props.sync(doc)
 	w.throw.sync(doc)
+	w.footage.sync(doc)
 	w.syncing--
 	w.changed()
 }
@@ -302,6 +308,7 @@ func (w *Window) apply(res editor.Result) {
 		w.timeline.setTake(res)
 		w.props.setResult(res)
 		w.throw.setResult(res)
+		w.footage.refit() // gravity may have changed
 		w.showFrame()
 		if w.reframe {
 			w.reframe = false
@@ -341,6 +348,7 @@ func (w *Window) showFrame() {
 	w.frame = min(max(w.frame, 0), w.lastFrame())
 	w.timeline.showFrame(w.frame)
 	w.view.showFrame(w.shownFrame())
+	w.footage.follow(w.frame)
 }
 
 // shownFrame is the frame whose pose the preview shows: the current one
@@ -423,6 +431,7 @@ func (w *Window) setImperial(on bool) {
 	w.throw.fields.setImperial(on)
 	w.verdict.fields.setImperial(on)
 	w.view.fields.setImperial(on)
+	w.footage.fields.setImperial(on)
 }
 
 // newField makes a number field that follows the imperial toggle.

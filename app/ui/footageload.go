@@ -1,0 +1,190 @@
+package ui
+
+import (
+	"errors"
+	"fmt"
+	"path/filepath"
+	"strconv"
+	"strings"
+
+	"fyne.io/fyne/v2"
+	"fyne.io/fyne/v2/dialog"
+	"fyne.io/fyne/v2/storage"
+
+	"propflight/app/footage"
+	"propflight/app/project"
+	"propflight/physics"
+)
+
+// This file is where the footage pane gets its clip: the folder and GIF
+// dialogs, the typed path, the footage's frame rate, and keeping the
+// saved path relative to the project file.
+
+// browseFolder asks for a folder of frames.
+func (p *footagePane) browseFolder() {
+	d := dialog.NewFolderOpen(func(lu fyne.ListableURI, err error) {
+		if err != nil {
+			p.w.showError("Could not load footage", err)
+			return
+		}
+		if lu != nil {
+			p.load(lu.Path())
+		}
+	}, p.w.win)
+	p.startIn(d)
+	d.Resize(fileDialogSize)
+	d.Show()
+}
+
+// browseGIF asks for an animated GIF.
+func (p *footagePane) browseGIF() {
+	d := dialog.NewFileOpen(func(rc fyne.URIReadCloser, err error) {
+		if err != nil {
+			p.w.showError("Could not load footage", err)
+			return
+		}
+		if rc == nil {
+			return
+		}
+		path := rc.URI().Path()
+		rc.Close()
+		p.load(path)
+	}, p.w.win)
+	d.SetFilter(storage.NewExtensionFileFilter([]string{".gif"}))
+	p.startIn(d)
+	d.Resize(fileDialogSize)
+	d.Show()
+}
+
+// startIn points a dialog at the current footage's folder, else where
+// project dialogs start.
+func (p *footagePane) startIn(d interface{ SetLocation(fyne.ListableURI) }) {
+	if dir := p.w.ed.Doc().FootageDir(p.w.ed.Path()); dir != "" {
+		if lu, err := storage.ListerForURI(storage.NewFileURI(filepath.Dir(dir))); err == nil {
+			d.SetLocation(lu)
+			return
+		}
+	}
+	p.w.startIn(d)
+}
+
+// load opens the footage at path with the document's footage rate and, if
+// it opens, makes it the project's footage (one undo step; the marks of
+// another clip are dropped). Footage that cannot be opened shows an error
+// dialog naming the file, and the project stays as it was.
+func (p *footagePane) load(path string) bool {
+	path = strings.TrimSpace(path)
+	if path == "" {
+		p.w.showError("Could not load footage", errors.New("give a folder of numbered PNG or JPEG frames, or an animated GIF"))
+		return false
+	}
+	doc := p.w.ed.Doc()
+	rate, _, err := doc.FootageRate()
+	if err != nil {
+		rate = physics.Rate{}
+	}
+	seq, err := footage.Open(path, footage.Options{FPS: rate})
+	if err != nil {
+		p.w.showError("Could not load footage", fmt.Errorf("%w\n\nThe project is unchanged.", err))
+		return false
+	}
+	same := doc.Footage != nil && filepath.Clean(doc.FootageDir(p.w.ed.Path())) == filepath.Clean(path)
+	p.seq, p.seqKey, p.loadErr = seq, seqKey(path, doc), nil
+	p.view.SetSource(seq)
+	p.takeFrame = -1
+	p.edit("Load footage", "", true, func(d *project.Document) error {
+		d.SetFootagePath(p.w.ed.Path(), path)
+		if !same {
+			d.Footage.Marks = nil
+		}
+		return nil
+	})
+	return true
+}
+
+// seqKey names what a sequence is opened from: the folder or GIF and the
+// document's footage rate.
+func seqKey(dir string, d *project.Document) string {
+	key := filepath.Clean(dir)
+	if d.Footage != nil && d.Footage.FPS != nil {
+		key += "\x00" + frameRateText(d.Footage.FPS)
+	}
+	return key
+}
+
+// pickRate sets the footage's frame rate from the picker.
+func (p *footagePane) pickRate(s string) {
+	if p.w.syncing > 0 || s == "" {
+		return
+	}
+	if s == customRate {
+		p.custom.SetText(frameRateText(p.footageFPS()))
+		p.custom.Show()
+		p.w.win.Canvas().Focus(p.custom)
+		return
+	}
+	p.custom.Hide()
+	var fr *project.FrameRate
+	for _, c := range rateChoices {
+		if c.Label == s {
+			fr = frameRateOf(c.Rate)
+		}
+	}
+	p.setRate("Change the footage rate to "+s, fr)
+}
+
+// typeRate sets a typed footage rate, kept as written; a bad one is
+// refused with a message.
+func (p *footagePane) typeRate(text string) {
+	text = strings.TrimSpace(text)
+	r, err := physics.ParseRate(text)
+	if err != nil || r.Num < r.Den {
+		p.status.SetText("footage rate: " + text + " is not a frame rate of at least 1 frame per second (write 12.5 or 24000/1001)")
+		return
+	}
+	fr := &project.FrameRate{Text: text}
+	if x, err := strconv.ParseFloat(text, 64); err == nil {
+		fr = &project.FrameRate{Number: x}
+	}
+	p.setRate("Change the footage rate to "+text, fr)
+}
+
+func (p *footagePane) setRate(label string, fr *project.FrameRate) {
+	p.edit(label, "", true, func(d *project.Document) error {
+		if d.Footage == nil {
+			return errNoFootage
+		}
+		d.Footage.FPS = fr
+		return nil
+	})
+}
+
+func (p *footagePane) footageFPS() *project.FrameRate {
+	if d := p.w.ed.Doc(); d.Footage != nil && d.Footage.FPS != nil {
+		return d.Footage.FPS
+	}
+	if p.seq != nil {
+		return frameRateOf(p.seq.FPS())
+	}
+	return nil
+}
+
+// rebaseFootage keeps a relative footage path pointing at the same clip
+// when the project is saved to path: one undo step, only when the path
+// changes.
+func (w *Window) rebaseFootage(path string) {
+	d := w.ed.Doc()
+	if d.Footage == nil {
+		return
+	}
+	old := d.Footage.Path
+	dir := d.FootageDir(w.ed.Path())
+	d.SetFootagePath(path, dir)
+	if d.Footage.Path == old {
+		return
+	}
+	w.edit("Keep the footage path", "", true, func(d *project.Document) error {
+		d.SetFootagePath(path, dir)
+		return nil
+	})
+}
