@@ -38,7 +38,7 @@ func usagef(format string, args ...any) error {
 }
 
 // Commands lists the command names in the order the help shows them.
-var Commands = []string{"check", "export", "sheet", "fit", "presets", "version", "help"}
+var Commands = []string{"open", "check", "export", "sheet", "fit", "presets", "version", "help"}
 
 // Export formats and sheet papers.
 var (
@@ -191,6 +191,10 @@ func Parse(args []string) (Command, error) {
 	}
 	cmd.Name = positional[0]
 	files := positional[1:]
+	if !slices.Contains(Commands, cmd.Name) && strings.EqualFold(extension(cmd.Name), ".json") {
+		// propflight FILE.json: open the window on that project.
+		cmd.Name, files = "open", positional
+	}
 	if !slices.Contains(Commands, cmd.Name) {
 		return Command{}, usagef("unknown command %s (commands: %s; see propflight --help)", quote(cmd.Name), strings.Join(Commands, ", "))
 	}
@@ -206,7 +210,7 @@ func Parse(args []string) (Command, error) {
 			return Command{}, usagef("%s: %s does not apply here (it goes with %s)", cmd.Name, quote(spelled), strings.Join(spec.commands, " or "))
 		}
 	}
-	takesFile := cmd.Name == "check" || cmd.Name == "export" || cmd.Name == "sheet"
+	takesFile := cmd.Name == "check" || cmd.Name == "export" || cmd.Name == "sheet" || cmd.Name == "open"
 	switch {
 	case len(files) > 0 && !takesFile:
 		return Command{}, usagef("%s takes no file (got %s)", cmd.Name, quote(files[0]))
@@ -222,6 +226,10 @@ func Parse(args []string) (Command, error) {
 		return Command{}, usagef("%s: reading a project from standard input is not supported; give a file name", cmd.Name)
 	}
 	switch cmd.Name {
+	case "open":
+		if cmd.File == "" {
+			return Command{}, usagef("open: give the project file to open")
+		}
 	case "export":
 		if err := checkExport(&cmd); err != nil {
 			return Command{}, err

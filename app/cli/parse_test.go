@@ -28,6 +28,8 @@ func TestParse_Commands(t *testing.T) {
 		{[]string{"export", "pan.json", "-oshot.glb"}, Command{Name: "export", File: "pan.json", Format: "gltf", Output: "shot.glb"}},
 		{[]string{"export", "--preset", "loaf", "-o", "f.png"}, Command{Name: "export", Preset: "loaf", Format: "png", Output: "f.png"}},
 		{[]string{"sheet", "pan.json", "-o", "s.pdf", "--paper", "Letter"}, Command{Name: "sheet", File: "pan.json", Output: "s.pdf", Paper: "letter"}},
+		{[]string{"pan.json"}, Command{Name: "open", File: "pan.json"}},
+		{[]string{"open", "pan.json"}, Command{Name: "open", File: "pan.json"}},
 		{[]string{"presets"}, Command{Name: "presets"}},
 		{[]string{"version"}, Command{Name: "version"}},
 		{[]string{"--version"}, Command{Name: "version"}},
@@ -53,9 +55,9 @@ func TestParse_UsageErrors(t *testing.T) {
 		args []string
 		want string
 	}{
-		{[]string{"--json"}, "no command given (commands: check, export, sheet, fit, presets, version, help; see propflight --help)"},
-		{[]string{"frobnicate"}, "unknown command frobnicate (commands: check, export, sheet, fit, presets, version, help; see propflight --help)"},
-		{[]string{"pan.json"}, "unknown command pan.json (commands: check, export, sheet, fit, presets, version, help; see propflight --help)"},
+		{[]string{"--json"}, "no command given (commands: open, check, export, sheet, fit, presets, version, help; see propflight --help)"},
+		{[]string{"frobnicate"}, "unknown command frobnicate (commands: open, check, export, sheet, fit, presets, version, help; see propflight --help)"},
+		{[]string{"pan.txt"}, "unknown command pan.txt (commands: open, check, export, sheet, fit, presets, version, help; see propflight --help)"},
 		{[]string{"check", "--jsno"}, "unknown flag --jsno (did you mean --json?) (see propflight --help)"},
 		{[]string{"check", "--pre", "loaf"}, "unknown flag --pre (did you mean --preset?) (see propflight --help)"},
 		{[]string{"check", "-x"}, "unknown flag -x (see propflight --help)"},

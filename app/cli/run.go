@@ -31,10 +31,11 @@ const Safety = "Planning and animation aid only: ignores air drag and contact; a
 
 // Run runs the command line args (without the program name), writing
 // results to stdout and errors, one line each, to stderr, and returns the
-// exit status. With no arguments it calls openWindow, or when that is nil
-// checks the embedded demo. A panic anywhere below is caught and reported
+// exit status. With no arguments it calls openWindow with "" (the demo),
+// and for "open FILE" (or a bare FILE.json) with FILE; when openWindow is
+// nil it checks that project on the terminal instead. A panic anywhere below is caught and reported
 // as one line with status 1.
-func Run(args []string, stdout, stderr io.Writer, openWindow func() error) (code int) {
+func Run(args []string, stdout, stderr io.Writer, openWindow func(path string) error) (code int) {
 	defer func() {
 		if r := recover(); r != nil {
 			fmt.Fprintf(stderr, "propflight: internal error: %s\n", oneLine(fmt.Sprint(r)))
@@ -49,14 +50,14 @@ func Run(args []string, stdout, stderr io.Writer, openWindow func() error) (code
 	if err != nil {
 		return fail(stderr, err)
 	}
-	if cmd.Name == "" {
+	if cmd.Name == "" || cmd.Name == "open" {
 		if openWindow != nil {
-			if err := openWindow(); err != nil {
+			if err := openWindow(cmd.File); err != nil {
 				return fail(stderr, err)
 			}
 			return ExitOK
 		}
-		cmd = Command{Name: "check"}
+		cmd = Command{Name: "check", File: cmd.File}
 	}
 	// Commands write into a buffer first so that a failure half-way leaves
 	// stdout empty.
@@ -229,6 +230,7 @@ tumble or wobble, and its flight frame by frame.
 
 Usage:
   propflight                          open the window on the demo
+  propflight [open] FILE.json         open the window on a project
   propflight check [FILE] [--json]    mass properties, verdict and flight timing
   propflight export FILE --format csv|gltf|png -o OUT
                                       write the take: CSV rows, a glTF 2.0

@@ -364,22 +364,30 @@ func TestRun_NegativeMass_ContractCase(t *testing.T) {
 
 func TestRun_Window(t *testing.T) {
 	var out, errb bytes.Buffer
-	opened := false
-	if code := Run(nil, &out, &errb, func() error { opened = true; return nil }); code != 0 || !opened {
-		t.Errorf("exit %d, opened %v", code, opened)
+	opened, at := false, "?"
+	open := func(path string) error { opened, at = true, path; return nil }
+	if code := Run(nil, &out, &errb, open); code != 0 || !opened || at != "" {
+		t.Errorf("exit %d, opened %v at %q", code, opened, at)
 	}
-	if code := Run(nil, &out, &errb, func() error { return errors.New("no display") }); code != 1 || !strings.Contains(errb.String(), "no display") {
+	// A project file alone, or with open, opens the window on it.
+	for _, args := range [][]string{{brick}, {"open", brick}} {
+		opened, at = false, "?"
+		if code := Run(args, &out, &errb, open); code != 0 || !opened || at != brick {
+			t.Errorf("%q: exit %d, opened %v at %q", args, code, opened, at)
+		}
+	}
+	if code := Run(nil, &out, &errb, func(string) error { return errors.New("no display") }); code != 1 || !strings.Contains(errb.String(), "no display") {
 		t.Errorf("exit %d, stderr %q", code, errb.String())
 	}
 	// A subcommand never opens the window.
-	if code := Run([]string{"presets"}, &out, &errb, func() error { t.Error("window opened"); return nil }); code != 0 {
+	if code := Run([]string{"presets"}, &out, &errb, func(string) error { t.Error("window opened"); return nil }); code != 0 {
 		t.Errorf("presets exit %d", code)
 	}
 }
 
 func TestRun_PanicIsOneLine(t *testing.T) {
 	var out, errb bytes.Buffer
-	code := Run(nil, &out, &errb, func() error { panic("boom\nsecond line") })
+	code := Run(nil, &out, &errb, func(string) error { panic("boom\nsecond line") })
 	if code != 1 {
 		t.Errorf("exit %d", code)
 	}

@@ -20,11 +20,11 @@ import (
 var errNoDisplay = errors.New("no display to open the window on (DISPLAY is not set): run it on a desktop or under Xvfb, or use propflight check")
 
 func main() {
-	openWindow := func() error {
+	openWindow := func(path string) error {
 		if runtime.GOOS == "linux" && os.Getenv("DISPLAY") == "" && os.Getenv("WAYLAND_DISPLAY") == "" {
 			return errNoDisplay
 		}
-		return ui.Run(app.NewWithID("dev.propflight.app"), "")
+		return ui.Run(app.NewWithID("dev.propflight.app"), path)
 	}
 	os.Exit(cli.Run(os.Args[1:], os.Stdout, os.Stderr, openWindow))
 }
