@@ -23,11 +23,32 @@ func (r Rate) Time(n int) float64 { return float64(n) * float64(r.Den) / float64
 
 // Frame returns the last frame at or before time t (seconds), allowing a
 // relative slack of 1e-9 frame so that a time that is a frame exactly, up
-// to round-off, counts as that frame.
-func (r Rate) Frame(t float64) int { return int(math.Floor(t*r.FPS() + 1e-9)) }
+// to round-off, counts as that frame. Times beyond the int range (such as
+// +Inf) give math.MaxInt or math.MinInt.
+func (r Rate) Frame(t float64) int { return saturate(math.Floor(t*r.FPS() + 1e-9)) }
 
-// Nearest returns the frame nearest time t.
-func (r Rate) Nearest(t float64) int { return int(math.Floor(t*r.FPS() + 0.5)) }
+// FrameAtOrAfter returns the first frame at or after time t: the frame on
+// which an event at t has happened (with Frame's slack for a time that is
+// a frame up to round-off), saturating as Frame does.
+func (r Rate) FrameAtOrAfter(t float64) int { return saturate(math.Ceil(t*r.FPS() - 1e-9)) }
+
+// Nearest returns the frame nearest time t, saturating as Frame does.
+func (r Rate) Nearest(t float64) int { return saturate(math.Floor(t*r.FPS() + 0.5)) }
+
+// saturate converts a whole number x to int, clamped to the int range (a
+// plain conversion of an out-of-range float is implementation-defined in
+// Go). NaN gives 0.
+func saturate(x float64) int {
+	switch {
+	case x >= math.MaxInt: // float64(math.MaxInt) is 2^63, out of range
+		return math.MaxInt
+	case x <= math.MinInt:
+		return math.MinInt
+	case x == x:
+		return int(x)
+	}
+	return 0
+}
 
 // String returns "24" for whole rates and "24000/1001" otherwise.
 func (r Rate) String() string {

@@ -32,9 +32,14 @@ type Take struct {
 
 // MaxFlight is the longest flight Simulate follows, in seconds, and
 // MaxFrames the most frames a take may hold (about 10 MB of frames).
+//
+// MaxSteps bounds the integration steps of one take, so that a very thin
+// prop spun fast is refused instead of running for hours (a 600 s flight
+// of a brick at 1000 turns per second needs about 1.5e7).
 const (
 	MaxFlight = 600.0
 	MaxFrames = 100000
+	MaxSteps  = 5e7
 )
 
 // ErrNoLanding is returned when the prop does not reach the ground within
@@ -120,6 +125,16 @@ func Simulate(p *Prop, mp *MassProps, th *Throw) (*Take, error) {
 	maxFrames := int(MaxFlight/dt) + 1
 	capped := maxFrames > MaxFrames
 	maxFrames = min(maxFrames, MaxFrames)
+	// The landing comes no later than the centre of mass reaching the
+	// ground (the lowest point is never above the centre of mass), so the
+	// work is bounded before it starts: a very thin prop spinning fast
+	// needs so many steps (h |L| / I1 <= maxStiffPerStep) that the flight
+	// would never finish.
+	if steps := float64(n) * float64(min(maxFrames, th.FPS.Frame(math.Min(th.groundTime(), MaxFlight))+2)); steps > MaxSteps {
+		return nil, fieldErr("throw.spin.turns_per_second",
+			"the flight needs about %.3g integration steps, more than %g: the prop's greatest moment is %.3g times its least; lower the spin, shorten the flight or thicken the thinnest part",
+			steps, float64(MaxSteps), mp.Moments[2]/mp.Moments[0])
+	}
 
 	take := &Take{}
 	appendFrame := func(k int, t float64, st body) {

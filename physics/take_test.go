@@ -206,3 +206,46 @@ func TestParseRate(t *testing.T) {
 	// 23.976 fps: frame 1 lasts 1001/24000 s = 41.708333 ms (REFERENCES.md §5.2).
 	checkRel(t, "23.976 frame", Rate{24000, 1001}.Time(1), 0.041708333333, 1e-9)
 }
+
+// TestSimulate_ThinPropRefused: a needle (radius 10 um, length 1 m) has
+// I3/I1 = (3r^2 + L^2)/(6 r^2) ~ 1.7e9 (cylinder table, REFERENCES.md
+// §1.1), so the step rule h |L|/I1 <= maxStiffPerStep asks for ~1e9 steps a
+// frame. Simulate must refuse it at once with a field error, not run for
+// hours.
+func TestSimulate_ThinPropRefused(t *testing.T) {
+	p := Prop{Parts: []Part{{Name: "needle", Shape: Cylinder, Radius: 1e-5, Length: 1, Mass: 1, Orient: Identity()}}}
+	mp := mustMass(t, &p)
+	th := DefaultThrow()
+	th.Velocity = r3.Vec{X: 2, Y: 4}
+	th.Spin = Spin{Axis: Greatest, Tilt: 10 * deg, TiltToward: Least, Rate: 10 * 2 * math.Pi}
+	var fe *FieldError
+	if _, err := Simulate(&p, &mp, &th); !errors.As(err, &fe) || fe.Field != "throw.spin.turns_per_second" {
+		t.Errorf("needle spun at 10 turns/s: %v, want a throw.spin.turns_per_second error", err)
+	}
+	// The same needle without spin flies (one step a frame).
+	th.Spin.Rate = 0
+	if _, err := Simulate(&p, &mp, &th); err != nil {
+		t.Errorf("needle without spin: %v", err)
+	}
+}
+
+// TestThrow_GroundTime: the centre of mass reaches the ground at the larger
+// root of y0 - g_y + vy t - g t^2/2 = 0 (projectile motion, REFERENCES.md
+// §5.1: v0 = (3, 8, 0) from the ground lands at 1.631545941 s).
+func TestThrow_GroundTime(t *testing.T) {
+	th := DefaultThrow()
+	th.Position = r3.Vec{}
+	th.GroundY = -1e-300 // just below: the level flight time
+	th.Velocity = r3.Vec{X: 3, Y: 8}
+	checkRel(t, "level flight", th.groundTime(), 1.631545941, 1e-9)
+	// Dropped from 1.5 m: sqrt(2 h / g) (free fall, from memory).
+	th = DefaultThrow()
+	checkRel(t, "drop", th.groundTime(), math.Sqrt(2*1.5/StandardGravity), 1e-12)
+	// Thrown down at 8 m/s from 3.263091882 m: the textbook root
+	// t = (vy + sqrt(vy^2 + 2 g h)) / g with vy = -8 m/s (quadratic
+	// formula; the code uses the rationalised form 2h / (sqrt(...) - vy)).
+	th.Position = r3.Vec{Y: 3.263091882}
+	th.Velocity = r3.Vec{Y: -8}
+	want := (-8 + math.Sqrt(64+2*StandardGravity*3.263091882)) / StandardGravity
+	checkRel(t, "downward throw", th.groundTime(), want, 1e-12)
+}

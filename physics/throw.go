@@ -156,3 +156,19 @@ func (t *Throw) CMAt(time float64) r3.Vec {
 // ApexTime returns the time of the top of the centre-of-mass arc, 0 if the
 // throw starts downward or level.
 func (t *Throw) ApexTime() float64 { return math.Max(0, t.Velocity.Y/t.Gravity) }
+
+// groundTime returns when the centre of mass comes down to the ground plane,
+// s (0 if it starts at or below it; +Inf for no gravity).
+func (t *Throw) groundTime() float64 {
+	drop := t.Position.Y - t.GroundY
+	if !(drop > 0) {
+		return 0
+	}
+	vy := t.Velocity.Y
+	// Larger root of y0 - ground + vy t - g t^2 / 2 = 0, in the form that
+	// does not cancel for a downward throw.
+	if vy >= 0 {
+		return (vy + math.Sqrt(vy*vy+2*t.Gravity*drop)) / t.Gravity
+	}
+	return 2 * drop / (math.Sqrt(vy*vy+2*t.Gravity*drop) - vy)
+}

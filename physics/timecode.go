@@ -1,6 +1,9 @@
 package physics
 
-import "fmt"
+import (
+	"fmt"
+	"math"
+)
 
 // Timecode returns the SMPTE timecode label of frame n (frame 0 =
 // 00:00:00:00) at rate r, as HH:MM:SS:FF.
@@ -14,9 +17,16 @@ import "fmt"
 // the label of -n.
 func (r Rate) Timecode(n int) string {
 	if n < 0 {
+		if n == math.MinInt {
+			n++ // -MinInt overflows; one frame off at the end of the range
+		}
 		return "-" + r.Timecode(-n)
 	}
-	base := int((r.Num + r.Den/2) / r.Den) // nominal whole rate
+	// Nominal whole rate, rounded half up without overflowing int64.
+	base := int(r.Num / r.Den)
+	if rem := r.Num % r.Den; rem >= r.Den-rem {
+		base++
+	}
 	if base < 1 {
 		base = 1
 	}

@@ -1,6 +1,9 @@
 package physics
 
-import "testing"
+import (
+	"math"
+	"testing"
+)
 
 // TestTimecode checks drop-frame labels against the rule of SMPTE ST 12-1
 // (labels :00 and :01 skipped each minute but every tenth; 10 minutes =
@@ -32,6 +35,37 @@ func TestTimecode(t *testing.T) {
 	for _, tc := range tests {
 		if got := tc.r.Timecode(tc.n); got != tc.want {
 			t.Errorf("%v frame %d: %s, want %s", tc.r, tc.n, got, tc.want)
+		}
+	}
+}
+
+// TestTimecode_ExtremeRates: the nominal whole rate of a ratio near the
+// int64 range is still its rounded value (here 10 fps: frame 25 is 2 s and 5
+// frames), and the most negative frame does not recurse forever.
+func TestTimecode_ExtremeRates(t *testing.T) {
+	r := Rate{math.MaxInt64, math.MaxInt64 / 10} // 10.000000000000000007 fps
+	if got := r.Timecode(25); got != "00:00:02:05" {
+		t.Errorf("frame 25 at %v fps: %s, want 00:00:02:05", r, got)
+	}
+	if got := (Rate{24, 1}).Timecode(math.MinInt); got == "" || got[0] != '-' {
+		t.Errorf("most negative frame: %q", got)
+	}
+}
+
+// TestRate_FrameSaturates: a time beyond the int range (an infinite flip
+// period, a rate of 1e-200 rad/s) gives the end of the int range, not the
+// implementation-defined result of converting an out-of-range float.
+func TestRate_FrameSaturates(t *testing.T) {
+	r := Rate{24, 1}
+	for _, c := range []struct {
+		t    float64
+		want int
+	}{{math.Inf(1), math.MaxInt}, {1e300, math.MaxInt}, {math.Inf(-1), math.MinInt}, {-1e300, math.MinInt}, {math.NaN(), 0}, {1, 24}} {
+		if got := r.Frame(c.t); got != c.want {
+			t.Errorf("Frame(%g) = %d, want %d", c.t, got, c.want)
+		}
+		if got := r.Nearest(c.t); got != c.want {
+			t.Errorf("Nearest(%g) = %d, want %d", c.t, got, c.want)
 		}
 	}
 }

@@ -102,14 +102,19 @@ func Judge(mp *MassProps, th *Throw, thr Thresholds) Verdict {
 		v.Motion = Spinning
 		return v
 	}
-	v.D = v.L * v.L / (2 * v.Energy)
+	// D, the excursion and the wobble ratio depend only on the direction
+	// of omega, and times scale as 1/|omega|: work with the unit direction
+	// so that a tiny rate (omega^2 underflowing) gives no NaN.
+	wn := r3.Norm(w)
+	lu := r3.Scale(1/wn, l)
+	v.D = r3.Norm2(lu) / r3.Dot(lu, r3.Scale(1/wn, w))
 	switch v.Symmetry {
 	case Spherical:
 		v.Motion = Spinning
 	case Prolate, Oblate:
 		judgeSymmetric(&v, l, thr)
 	default:
-		judgeAsymmetric(&v, mp, th, l, thr)
+		judgeAsymmetric(&v, lu, wn, thr)
 	}
 	return v
 }
@@ -139,7 +144,9 @@ func judgeSymmetric(v *Verdict, l r3.Vec, thr Thresholds) {
 	}
 }
 
-func judgeAsymmetric(v *Verdict, mp *MassProps, th *Throw, l r3.Vec, thr Thresholds) {
+// judgeAsymmetric judges an asymmetric body from lu, the body angular
+// momentum per unit |omega| (I omega / |omega|), and the rate wn = |omega|.
+func judgeAsymmetric(v *Verdict, lu r3.Vec, wn float64, thr Thresholds) {
 	I := v.Moment
 	D := v.D
 	var c2 float64
@@ -159,7 +166,6 @@ func judgeAsymmetric(v *Verdict, mp *MassProps, th *Throw, l r3.Vec, thr Thresho
 	// Onset of a near-middle-axis spin, from the linearised growth rate
 	// lambda = Omega sqrt((I2-I1)(I3-I2)/(I1 I3)).
 	w := v.Omega0
-	wn := r3.Norm(w)
 	off := math.Acos(math.Min(1, math.Abs(w.Y)/wn))
 	if off*180/math.Pi < NearMiddleDeg {
 		v.HasOnset = true
@@ -177,8 +183,11 @@ func judgeAsymmetric(v *Verdict, mp *MassProps, th *Throw, l r3.Vec, thr Thresho
 	}
 	v.Motion = Tumbling
 	v.HasFlip = true
-	v.FlipPeriod = PolhodePeriod(I, v.L*v.L, 2*v.Energy) / 2
-	v.FirstFlip, v.FirstFlipFound = firstFlip(I, l, v.FlipPeriod)
+	// The unit-rate motion, then times scaled by 1/|omega|.
+	half := PolhodePeriod(I, r3.Norm2(lu), r3.Dot(lu, r3.Vec{X: lu.X / I[0], Y: lu.Y / I[1], Z: lu.Z / I[2]})) / 2
+	v.FlipPeriod = half / wn
+	first, ok := firstFlip(I, lu, half)
+	v.FirstFlip, v.FirstFlipFound = first/wn, ok
 }
 
 // PolhodePeriod returns the period T of the body-frame angular velocity of a

@@ -249,6 +249,15 @@ func TestWobble_Disc(t *testing.T) {
 	// r/cos(theta) with theta the L-axis angle, exactly (Fowler §26.2).
 	r := mp.Moments[2] / ((mp.Moments[0] + mp.Moments[1]) / 2)
 	checkRel(t, "wobbles per turn = r/cos(theta)", v.WobblesPerTurn, r/math.Cos(v.ExcursionDeg*deg), 1e-9)
+	// The same from the table moments alone (REFERENCES.md §1.1, solid
+	// cylinder: I3 = m R^2/2, I1 = m (3R^2 + h^2)/12) and the 1 degree tilt
+	// of omega: tan(theta) = I1 omega_perp / (I3 omega3), not through
+	// MassProps or Judge's own angle.
+	I3 := 0.5 * 0.135 * 0.135 / 2
+	I1 := 0.5 * (3*0.135*0.135 + 1e-10) / 12
+	theta := math.Atan(I1 * math.Sin(1*deg) / (I3 * math.Cos(1*deg)))
+	checkRel(t, "wobbles per turn from the cylinder table", v.WobblesPerTurn, I3/I1/math.Cos(theta), 1e-9)
+	checkRel(t, "theta from the cylinder table", v.ExcursionDeg, theta/deg, 1e-9)
 	// The Euler-angle spin is (1 - r) omega3 = -omega3 for a disc, so the
 	// wobble is also twice the Euler spin (REFERENCES.md §2.1, §2.2).
 	if math.Abs(v.WobblesPerEulerTurn-2) > 3e-3 {
@@ -313,4 +322,42 @@ func TestJudge_Rules(t *testing.T) {
 	if v := Judge(&pm, &th, DefaultThresholds()); v.Symmetry != Prolate || v.Motion != Spinning || math.Abs(v.ExcursionDeg-90) > 1e-9 {
 		t.Errorf("rolling pin end over end: %v %v %g", v.Symmetry, v.Motion, v.ExcursionDeg)
 	}
+}
+
+// TestJudge_TinyRate: the verdict depends only on the direction of the
+// release spin, and its times scale as 1/|omega| (Euler's equations are
+// homogeneous of degree 2 in omega, LL §36). A rate so small that omega^2
+// underflows (1e-200 rad/s) must give the same excursion as 4 pi rad/s and
+// never NaN.
+func TestJudge_TinyRate(t *testing.T) {
+	brick := Prop{Parts: []Part{box(2, 0.2, 0.1, 0.05)}}
+	mp := mustMass(t, &brick)
+	th := DefaultThrow()
+	th.Spin = Spin{Axis: Middle, Tilt: 2 * deg, TiltToward: Least, Rate: 4 * math.Pi}
+	ref := Judge(&mp, &th, DefaultThresholds())
+	th.Spin.Rate = 1e-200
+	v := Judge(&mp, &th, DefaultThresholds())
+	if v.Motion != ref.Motion || v.Circles != ref.Circles {
+		t.Fatalf("tiny rate: %v about %v, want %v about %v", v.Motion, v.Circles, ref.Motion, ref.Circles)
+	}
+	checkRel(t, "excursion", v.ExcursionDeg, ref.ExcursionDeg, 1e-12)
+	checkRel(t, "D", v.D, ref.D, 1e-12)
+	if math.IsNaN(v.FlipPeriod) || math.IsNaN(v.Onset) || math.IsNaN(v.GrowthRate) {
+		t.Errorf("tiny rate gives NaN: flip %g, onset %g, growth %g", v.FlipPeriod, v.Onset, v.GrowthRate)
+	}
+	// The flip period scales as 1/|omega| (may overflow to +Inf, never NaN).
+	if want := ref.FlipPeriod * 4 * math.Pi / 1e-200; !math.IsInf(v.FlipPeriod, 1) {
+		checkRel(t, "flip period", v.FlipPeriod, want, 1e-9)
+	}
+	// A symmetric body: the wobble ratio is scale-free too.
+	disc := Prop{Parts: []Part{{Shape: Cylinder, Radius: 0.135, Length: 0.01, Mass: 0.5, Orient: Identity()}}}
+	dm := mustMass(t, &disc)
+	th.Spin = Spin{Axis: Greatest, Tilt: 5 * deg, TiltToward: Least, Rate: 4 * math.Pi}
+	ref = Judge(&dm, &th, DefaultThresholds())
+	th.Spin.Rate = 1e-200
+	v = Judge(&dm, &th, DefaultThresholds())
+	if v.Motion != Wobbling {
+		t.Fatalf("tiny-rate disc: %v, want wobble", v.Motion)
+	}
+	checkRel(t, "wobbles per turn", v.WobblesPerTurn, ref.WobblesPerTurn, 1e-12)
 }

@@ -91,17 +91,6 @@ func writeCheckJSON(w io.Writer, f *flight) error {
 	return err
 }
 
-// frameAtOrAfter returns the first frame at or after time t: the frame on
-// which an event at t has happened (ceil, with Rate.Frame's slack for a
-// time that is a frame up to round-off).
-func frameAtOrAfter(r physics.Rate, t float64) int {
-	n := r.Frame(t)
-	if float64(n) < t*r.FPS()-1e-9 {
-		n++
-	}
-	return n
-}
-
 // num formats x with four significant digits (%.4g).
 func num(x float64) string { return fmt.Sprintf("%.4g", x) }
 
@@ -127,7 +116,10 @@ func rateText(r physics.Rate) string {
 // frameAt formats time t as "frame N (t s)", N the first frame at or
 // after t.
 func frameAt(r physics.Rate, t float64) string {
-	return fmt.Sprintf("frame %d (%.3f s)", frameAtOrAfter(r, t), t)
+	if n := r.FrameAtOrAfter(t); n < math.MaxInt {
+		return fmt.Sprintf("frame %d (%.3f s)", n, t)
+	}
+	return fmt.Sprintf("beyond any frame (%.3g s)", t)
 }
 
 var axisWords = [3]string{"least", "middle", "greatest"}
@@ -233,7 +225,7 @@ func writeSummary(w io.Writer, f *flight) {
 		}
 		if v.FirstFlipFound {
 			after := ""
-			if frameAtOrAfter(rate, v.FirstFlip) > take.LandingFrame {
+			if rate.FrameAtOrAfter(v.FirstFlip) > take.LandingFrame {
 				after = ", after landing"
 			}
 			sub("First flip", "%s%s", frameAt(rate, v.FirstFlip), after)

@@ -35,13 +35,6 @@ type timing struct {
 	aliased bool       // some frame turns more than half a turn (the turn column is the shorter way)
 }
 
-// frameAtOrAfter returns the first frame at or after time t (seconds),
-// with the same 1e-9 frame slack as physics.Rate.Frame so that a time that
-// is a frame exactly, up to round-off, counts as that frame.
-func frameAtOrAfter(r physics.Rate, t float64) int {
-	return int(math.Ceil(t*r.FPS() - 1e-9))
-}
-
 // keyFrames returns the keys of a take with its last frame: release (0),
 // apex and landing, ascending without repeats.
 func keyFrames(tk *physics.Take) []int {
@@ -78,7 +71,7 @@ func flipFrames(v *physics.Verdict, r physics.Rate, tk *physics.Take) []int {
 	var out []int
 	for k := 0; ; k++ {
 		t := v.FirstFlip + float64(k)*v.FlipPeriod
-		f := frameAtOrAfter(r, t)
+		f := r.FrameAtOrAfter(t)
 		if t > tEnd+1e-9/r.FPS() || f > last || k > 100000 {
 			return out
 		}
@@ -170,7 +163,7 @@ func analyse(tk *physics.Take, r physics.Rate, v *physics.Verdict) *timing {
 		add(f, "flip "+strconv.Itoa(k+1))
 	}
 	if v.HasOnset && !math.IsInf(v.Onset, 0) && !math.IsNaN(v.Onset) {
-		if f := frameAtOrAfter(r, v.Onset); f <= last {
+		if f := r.FrameAtOrAfter(v.Onset); f <= last {
 			tm.onset = f
 			add(f, "onset")
 		}

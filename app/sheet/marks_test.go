@@ -66,12 +66,12 @@ func TestFrameAtOrAfter(t *testing.T) {
 		t    float64
 		want int
 	}{{0, 0}, {0.001, 1}, {2.0 / 24, 2}, {2.0/24 + 1e-6, 3}, {0.1, 3}, {1, 24}} {
-		if got := frameAtOrAfter(r, c.t); got != c.want {
-			t.Errorf("frameAtOrAfter(%g) = %d, want %d", c.t, got, c.want)
+		if got := r.FrameAtOrAfter(c.t); got != c.want {
+			t.Errorf("%g) = %d.FrameAtOrAfter(want %d", c.t, got, c.want)
 		}
 	}
 	ntsc := physics.Rate{Num: 30000, Den: 1001}
-	if got := frameAtOrAfter(ntsc, ntsc.Time(17)); got != 17 {
+	if got := ntsc.FrameAtOrAfter(ntsc.Time(17)); got != 17 {
 		t.Errorf("a frame's own time at 29.97: frame %d, want 17", got)
 	}
 }

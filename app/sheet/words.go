@@ -70,7 +70,7 @@ func (s *sheet) fps() float64 { return s.sc.Throw.FPS.FPS() }
 // atFrame describes time t as "0.212 s, frame 6" (the first frame at or
 // after t), noting a frame past the take's last.
 func (s *sheet) atFrame(t float64) string {
-	f := frameAtOrAfter(s.sc.Throw.FPS, t)
+	f := s.sc.Throw.FPS.FrameAtOrAfter(t)
 	out := sig(t, 3) + " s, frame " + itoa(f)
 	if f > len(s.tk.Frames)-1 {
 		out += " (after landing)"

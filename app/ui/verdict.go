@@ -65,7 +65,7 @@ func verdictReport(res editor.Result) report {
 			add("flip period", "%s frames (%s s)", sig3(v.FlipPeriod*rate.FPS()), sig3(v.FlipPeriod))
 		}
 		if v.FirstFlipFound {
-			add("first flip", "frame %d (%s s)", rate.Nearest(v.FirstFlip), sig3(v.FirstFlip))
+			add("first flip", "frame %d (%s s)", rate.FrameAtOrAfter(v.FirstFlip), sig3(v.FirstFlip))
 		} else {
 			add("first flip", "none found")
 		}
@@ -74,7 +74,7 @@ func verdictReport(res editor.Result) report {
 		if math.IsInf(v.Onset, 1) {
 			add("flip onset", "never (the spin is exactly on the middle axis)")
 		} else {
-			add("flip onset", "frame %d (%s s), predicted", rate.Nearest(v.Onset), sig3(v.Onset))
+			add("flip onset", "frame %d (%s s), predicted", rate.FrameAtOrAfter(v.Onset), sig3(v.Onset))
 		}
 	}
 	if tk := res.Take; tk != nil {
