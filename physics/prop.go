@@ -189,16 +189,18 @@ func largestPositive(v r3.Vec) r3.Vec {
 }
 
 // SymmetryOf classifies sorted moments: two within tol of each other
-// (relative to the larger) are equal.
+// (relative to the larger) are equal. All three count as equal only when
+// the least and greatest are within tol; when both neighbouring pairs are
+// within tol but the ends are not, the closer pair decides.
 func SymmetryOf(m [3]float64, tol float64) Symmetry {
-	eq := func(a, b float64) bool { return math.Abs(b-a) <= tol*math.Max(math.Abs(a), math.Abs(b)) }
-	lo, hi := eq(m[0], m[1]), eq(m[1], m[2])
+	rel := func(a, b float64) float64 { return math.Abs(b-a) / math.Max(math.Abs(a), math.Abs(b)) }
+	lo, hi := rel(m[0], m[1]), rel(m[1], m[2])
 	switch {
-	case lo && hi:
+	case rel(m[0], m[2]) <= tol:
 		return Spherical
-	case lo:
+	case lo <= tol && (hi > tol || lo <= hi):
 		return Oblate
-	case hi:
+	case hi <= tol:
 		return Prolate
 	}
 	return Asymmetric

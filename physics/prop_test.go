@@ -187,7 +187,11 @@ func TestSymmetryOf(t *testing.T) {
 		{[3]float64{1, 2, 3}, Asymmetric},
 		{[3]float64{1, 1.005, 3}, Oblate},
 		{[3]float64{1, 2.99, 3}, Prolate},
-		{[3]float64{1, 1.009, 1.018}, Spherical},
+		{[3]float64{1, 1.005, 1.0099}, Spherical},
+		// Each neighbouring pair within 1 % but the ends 1.8 % apart: not
+		// "all three"; the closer pair (I2, I3) makes it prolate.
+		{[3]float64{1, 1.009, 1.018}, Prolate},
+		{[3]float64{1, 1.006, 1.0155}, Oblate},
 		{[3]float64{1, 1.02, 3}, Asymmetric},
 	}
 	for _, tc := range tests {
