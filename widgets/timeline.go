@@ -68,6 +68,11 @@ type Mark struct {
 type Timeline struct {
 	widget.BaseWidget
 
+	// OnOtherKey is called with the keys the timeline does not use itself
+	// while it has the focus (the window plays and pauses with Space), so
+	// taking the focus with a tap swallows no key. It may be nil.
+	OnOtherKey func(*fyne.KeyEvent)
+
 	onChange func(frame int)
 	frames   int
 	fps      physics.Rate
@@ -153,6 +158,7 @@ func (t *Timeline) TypedRune(rune) {}
 
 // TypedKey steps the cursor: Left and Right by a frame, Page Up and Page
 // Down by a timecode second, Home and End to the first and last frame.
+// Other keys go to OnOtherKey.
 func (t *Timeline) TypedKey(k *fyne.KeyEvent) {
 	n := t.frame
 	base := nominalRate(t.fps)
@@ -170,6 +176,9 @@ func (t *Timeline) TypedKey(k *fyne.KeyEvent) {
 	case fyne.KeyEnd:
 		n = t.frames - 1
 	default:
+		if t.OnOtherKey != nil {
+			t.OnOtherKey(k)
+		}
 		return
 	}
 	t.moveTo(n)

@@ -89,6 +89,25 @@ func TestTimeline_Keys_StepFrames(t *testing.T) {
 	}
 }
 
+// TestTimeline_OtherKeys_PassedOn: keys the timeline does not use reach
+// OnOtherKey (the window plays with Space); its own keys do not.
+func TestTimeline_OtherKeys_PassedOn(t *testing.T) {
+	tl, _, got := timelineWindow(t, 24)
+	var other []fyne.KeyName
+	tl.OnOtherKey = func(k *fyne.KeyEvent) { other = append(other, k.Name) }
+	for _, k := range []fyne.KeyName{fyne.KeySpace, fyne.KeyRight, fyne.KeyReturn, fyne.KeyHome} {
+		tl.TypedKey(&fyne.KeyEvent{Name: k})
+	}
+	if want := []fyne.KeyName{fyne.KeySpace, fyne.KeyReturn}; !slices.Equal(other, want) {
+		t.Errorf("OnOtherKey got %v, want %v", other, want)
+	}
+	if want := []int{1, 0}; !slices.Equal(*got, want) {
+		t.Errorf("onChange %v, want %v", *got, want)
+	}
+	tl.OnOtherKey = nil
+	tl.TypedKey(&fyne.KeyEvent{Name: fyne.KeySpace}) // no callback: nothing happens
+}
+
 func TestTimeline_Empty_IgnoresInput(t *testing.T) {
 	tl, _, got := timelineWindow(t, 0)
 	test.TapAt(tl, fyne.NewPos(150, 20))

@@ -4,6 +4,7 @@ import (
 	"bytes"
 	"errors"
 	"os"
+	"path/filepath"
 
 	"propflight/app/project"
 )
@@ -24,24 +25,21 @@ type snapshot struct {
 type Editor struct {
 	doc   *project.Document
 	path  string // "" until saved or opened
-	saved []byte // bytes of the last saved or opened state
+	clean []byte // bytes of the clean state: as opened, started or last saved
 	undo  []snapshot
 	redo  []snapshot
 	open  string // merge key of the edit in progress, "" when none
 }
 
 // New returns an editor on doc, which came from path ("" for a new or
-// demo project that has never been saved).
+// demo project that has never been saved). doc as given is the clean
+// state, with a path or without: an untouched demo has nothing to lose.
 func New(doc *project.Document, path string) (*Editor, error) {
 	data, err := project.Marshal(doc)
 	if err != nil {
 		return nil, err
 	}
-	e := &Editor{doc: mustClone(data, doc.File), path: path}
-	if path != "" {
-		e.saved = data
-	}
-	return e, nil
+	return &Editor{doc: mustClone(data, doc.File), path: path, clean: data}, nil
 }
 
 // Doc returns a copy of the current document, safe to keep or hand to
@@ -57,10 +55,14 @@ func (e *Editor) Doc() *project.Document {
 // Path returns the file the project was last opened from or saved to.
 func (e *Editor) Path() string { return e.path }
 
-// Dirty reports whether the project has changes not saved to Path.
+// Dirty reports whether the project differs from its clean state: the
+// state it was opened or started with (New, Open, Replace), or last saved
+// (Save). Undoing back to that state makes it clean again. A project
+// never saved is clean until it is edited, so closing an untouched demo
+// or new project loses nothing and needs no question.
 func (e *Editor) Dirty() bool {
 	data, err := project.Marshal(e.doc)
-	return err != nil || e.saved == nil || !bytes.Equal(data, e.saved)
+	return err != nil || !bytes.Equal(data, e.clean)
 }
 
 // Apply changes the document with edit, recording the previous state for
@@ -149,19 +151,69 @@ func (e *Editor) Redo() bool {
 }
 
 // Save writes the project to path atomically (a temporary file, then a
-// rename), and makes path the project's file. On error nothing changes.
+// rename), makes path the project's file and the saved state the clean
+// one. On error nothing changes.
+//
+// A relative footage.path is relative to the project file's folder, so a
+// save to another folder rewrites it to name the same footage from there
+// (project.Document.RebaseFootage); so does the first save of a project
+// that had no file, which also turns an absolute footage path into one
+// relative to the new folder where one can be made. The rewrite is part of
+// the save, not an undo step: it is applied to the undo and redo states
+// too, so that Undo after the save still names the same footage. An
+// absolute path of a project that had a file is kept as written.
 func (e *Editor) Save(path string) error {
 	if path == "" {
 		return errors.New("save: no file name")
 	}
 	doc := e.Doc()
 	doc.File = path
+	rebase := footageRebase(e.path, path)
+	rebase(doc)
 	if err := project.Save(path, doc); err != nil {
 		return err
 	}
-	data, _ := project.Marshal(doc)
-	e.saved, e.path, e.doc.File = data, path, path
+	data, err := project.Marshal(doc)
+	if err != nil {
+		return err // cannot happen: Save marshalled the same document
+	}
+	e.rebaseHistory(rebase)
+	e.doc, e.clean, e.path = doc, data, path
 	return nil
+}
+
+// footageRebase returns the rewrite of footage.path for a project that
+// moves from the file oldPath ("" for none) to newPath; see Save.
+func footageRebase(oldPath, newPath string) func(d *project.Document) {
+	switch {
+	case oldPath == "":
+		return func(d *project.Document) {
+			if dir := d.FootageDir(""); dir != "" {
+				d.SetFootagePath(newPath, dir)
+			}
+		}
+	case filepath.Clean(oldPath) == filepath.Clean(newPath):
+		return func(*project.Document) {}
+	default:
+		return func(d *project.Document) { d.RebaseFootage(oldPath, newPath) }
+	}
+}
+
+// rebaseHistory applies rebase to every undo and redo state that has
+// footage. A state that does not parse back is our own bug (mustClone).
+func (e *Editor) rebaseHistory(rebase func(d *project.Document)) {
+	for _, stack := range [][]snapshot{e.undo, e.redo} {
+		for i := range stack {
+			d := mustClone(stack[i].data, e.doc.File)
+			if d.Footage == nil {
+				continue
+			}
+			rebase(d)
+			if data, err := project.Marshal(d); err == nil {
+				stack[i].data = data
+			}
+		}
+	}
 }
 
 // Open reads a project from path and makes it the current one with a fresh

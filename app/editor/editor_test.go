@@ -117,9 +117,18 @@ func TestEditor_FailedEditChangesNothing(t *testing.T) {
 func TestEditor_DirtySaveOpen(t *testing.T) {
 	dir := t.TempDir()
 	e, _ := New(demoDoc(t), "")
-	if !e.Dirty() {
-		t.Error("a never-saved project should count as unsaved")
+	if e.Dirty() {
+		t.Error("an untouched project that was never saved counts as unsaved: closing the demo would ask")
 	}
+	_ = e.Apply("Change radius", "", setRadius(0.2))
+	if !e.Dirty() {
+		t.Error("an edit of a never-saved project is not unsaved")
+	}
+	e.Undo()
+	if e.Dirty() {
+		t.Error("undo back to the state the project started in should be clean")
+	}
+	_ = e.Apply("Change radius", "", setRadius(0.21))
 	path := filepath.Join(dir, "pan.json")
 	if err := e.Save(path); err != nil {
 		t.Fatal(err)
@@ -148,6 +157,90 @@ func TestEditor_DirtySaveOpen(t *testing.T) {
 	}
 	if err := e.Open(path); err != nil || e.Dirty() || e.CanUndo() {
 		t.Errorf("open good file: %v, dirty %v, undo %v", err, e.Dirty(), e.CanUndo())
+	}
+	// Replace makes the new project's state the clean one, with or
+	// without a file.
+	_ = e.Apply("Change radius", "", setRadius(0.3))
+	if err := e.Replace(demoDoc(t), ""); err != nil || e.Dirty() || e.Path() != "" {
+		t.Errorf("replace: %v, dirty %v, path %q", err, e.Dirty(), e.Path())
+	}
+}
+
+// footageDoc returns the demo with footage at path, as written.
+func footageDoc(t *testing.T, path string) *project.Document {
+	t.Helper()
+	d := demoDoc(t)
+	d.Footage = &project.Footage{Path: path}
+	return d
+}
+
+// TestEditor_Save_RebasesFootage: saving to another folder rewrites a
+// relative footage path so that it names the same folder, without an undo
+// step, leaves the project clean, and rewrites the undo and redo states
+// too, so that undo after the save still names the same footage.
+func TestEditor_Save_RebasesFootage(t *testing.T) {
+	root := t.TempDir()
+	clip := filepath.Join(root, "shots", "clip")
+	oldPath := filepath.Join(root, "a", "pan.json")
+	newPath := filepath.Join(root, "b", "deep", "pan.json")
+	for _, d := range []string{clip, filepath.Dir(oldPath), filepath.Dir(newPath)} {
+		if err := os.MkdirAll(d, 0o755); err != nil {
+			t.Fatal(err)
+		}
+	}
+	e, err := New(footageDoc(t, "../shots/clip"), oldPath)
+	if err != nil {
+		t.Fatal(err)
+	}
+	_ = e.Apply("Change radius", "", setRadius(0.2))
+	_ = e.Apply("Change radius", "", setRadius(0.3))
+	e.Undo() // one redo state
+	if err := e.Save(newPath); err != nil {
+		t.Fatal(err)
+	}
+	d := e.Doc()
+	if d.Footage.Path != "../../shots/clip" || d.FootageDir(newPath) != clip {
+		t.Errorf("after save as: footage.path %q (dir %q), want ../../shots/clip", d.Footage.Path, d.FootageDir(newPath))
+	}
+	if e.Dirty() {
+		t.Error("the save's own footage rewrite left the project unsaved")
+	}
+	if e.UndoLabel() != "Change radius" || e.RedoLabel() != "Change radius" {
+		t.Errorf("the save added a step: undo %q, redo %q", e.UndoLabel(), e.RedoLabel())
+	}
+	saved, err := project.Load(newPath)
+	if err != nil || saved.Footage == nil || saved.Footage.Path != "../../shots/clip" {
+		t.Fatalf("the saved file: %v, footage %+v", err, saved.Footage)
+	}
+	e.Redo()
+	if got := e.Doc().FootageDir(newPath); got != clip {
+		t.Errorf("redo after the save names footage %q, want %q", got, clip)
+	}
+	e.Undo()
+	e.Undo()
+	if got := e.Doc().FootageDir(newPath); got != clip || radius(e.Doc()) == 0.2 {
+		t.Errorf("undo after the save names footage %q, want %q", got, clip)
+	}
+	// Saving again in place rewrites nothing; an absolute path is kept.
+	abs, _ := New(footageDoc(t, filepath.ToSlash(clip)), oldPath)
+	if err := abs.Save(newPath); err != nil || abs.Doc().Footage.Path != filepath.ToSlash(clip) {
+		t.Errorf("absolute footage path after save as: %v, %q", err, abs.Doc().Footage.Path)
+	}
+}
+
+// TestEditor_FirstSave_MakesFootageRelative: a project never saved keeps
+// its footage as an absolute path; its first save makes it relative to the
+// new file's folder, so the folder can move with its footage.
+func TestEditor_FirstSave_MakesFootageRelative(t *testing.T) {
+	root := t.TempDir()
+	clip := filepath.Join(root, "clip")
+	e, _ := New(footageDoc(t, filepath.ToSlash(clip)), "")
+	path := filepath.Join(root, "pan.json")
+	if err := e.Save(path); err != nil {
+		t.Fatal(err)
+	}
+	if got := e.Doc().Footage.Path; got != "clip" || e.Dirty() || e.CanUndo() {
+		t.Errorf("first save: footage.path %q, dirty %v, undo %v; want \"clip\", clean, no undo", got, e.Dirty(), e.CanUndo())
 	}
 }
 

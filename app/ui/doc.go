@@ -14,7 +14,9 @@
 // every edit asks the worker for a fresh verdict and take. Results come
 // back on the worker goroutine and are applied inside fyne.Do, and only if
 // they are newer than the last one applied: the window never waits for a
-// computation.
+// computation. Exports and the opening of footage also run on their own
+// goroutines with settings read on the UI goroutine beforehand, and hand
+// their outcome back the same way.
 //
 // Units: the controls show the project file's units (metres, kilograms,
 // kg/m^3, degrees, seconds, turns per second), with an imperial display

@@ -5,7 +5,6 @@ import (
 	"errors"
 	"fmt"
 	"io"
-	"os"
 	"path/filepath"
 	"strings"
 
@@ -19,6 +18,7 @@ import (
 	"propflight/app/export"
 	"propflight/app/fsutil"
 	"propflight/app/sheet"
+	"propflight/widgets/wire"
 )
 
 // Exports from the window: the timing sheet, the CSV take, glTF and a PNG
@@ -29,11 +29,25 @@ import (
 
 // exportJob is one export: what it is called, the file extension it
 // writes (empty for a folder) and the work, which reports progress and
-// stops early when cancel closes.
+// stops early when cancel closes. The work runs off the UI goroutine: it
+// reads no widget, only res and the settings taken from the controls
+// before it starts.
 type exportJob struct {
 	title string
 	ext   string
-	work  func(path string, res editor.Result, progress func(done, total int), cancel <-chan struct{}) (string, error)
+	work  func(path string, res editor.Result, set exportSettings, progress func(done, total int), cancel <-chan struct{}) (string, error)
+}
+
+// exportSettings are the window's settings an export uses, read from the
+// controls on the UI goroutine when the export starts.
+type exportSettings struct {
+	twos bool      // the take is timed on twos
+	view wire.View // the preview's view, for PNG frames
+}
+
+// exportSettings reads the settings an export uses from the controls.
+func (w *Window) exportSettings() exportSettings {
+	return exportSettings{twos: w.throw.onTwos(), view: w.view.preview.View()}
 }
 
 // errExportCancelled is the work's answer to a Cancel press.
@@ -44,22 +58,22 @@ func (w *Window) exportMenu() *fyne.MenuItem {
 	item := func(j exportJob) *fyne.MenuItem { return fyne.NewMenuItem(j.title+"…", func() { w.startExport(j) }) }
 	m := fyne.NewMenuItem("Export", nil)
 	m.ChildMenu = fyne.NewMenu("",
-		item(w.sheetJob(sheet.PaperA4)),
-		item(w.sheetJob(sheet.PaperLetter)),
-		item(w.csvJob()),
+		item(sheetJob(sheet.PaperA4)),
+		item(sheetJob(sheet.PaperLetter)),
+		item(csvJob()),
 		item(gltfJob()),
-		item(w.pngJob()),
+		item(pngJob()),
 	)
 	return m
 }
 
-func (w *Window) sheetJob(paper string) exportJob {
+func sheetJob(paper string) exportJob {
 	return exportJob{title: "Timing Sheet (" + strings.ToUpper(paper[:1]) + paper[1:] + ")", ext: ".pdf",
-		work: func(path string, res editor.Result, progress func(int, int), cancel <-chan struct{}) (string, error) {
+		work: func(path string, res editor.Result, set exportSettings, progress func(int, int), cancel <-chan struct{}) (string, error) {
 			thr := res.Thresholds
 			in := sheet.Input{Scene: res.Scene, Verdict: res.Verdict, Take: res.Take, Thresholds: &thr}
 			var buf bytes.Buffer
-			err := sheet.Write(&buf, in, sheet.Options{Paper: paper, Twos: w.throw.onTwos(), Progress: progress, Cancel: cancel})
+			err := sheet.Write(&buf, in, sheet.Options{Paper: paper, Twos: set.twos, Progress: progress, Cancel: cancel})
 			if errors.Is(err, sheet.ErrCancelled) {
 				return "", errExportCancelled
 			}
@@ -70,11 +84,11 @@ func (w *Window) sheetJob(paper string) exportJob {
 		}}
 }
 
-func (w *Window) csvJob() exportJob {
+func csvJob() exportJob {
 	return exportJob{title: "Take as CSV", ext: ".csv",
-		work: func(path string, res editor.Result, _ func(int, int), _ <-chan struct{}) (string, error) {
+		work: func(path string, res editor.Result, set exportSettings, _ func(int, int), _ <-chan struct{}) (string, error) {
 			write := export.WriteCSV
-			if w.throw.onTwos() {
+			if set.twos {
 				write = export.WriteCSVTwos
 			}
 			return "CSV take", fsutil.WriteAtomic(path, func(f io.Writer) error { return write(f, res.Take) })
@@ -83,7 +97,7 @@ func (w *Window) csvJob() exportJob {
 
 func gltfJob() exportJob {
 	return exportJob{title: "Take as glTF (GLB)", ext: ".glb",
-		work: func(path string, res editor.Result, _ func(int, int), _ <-chan struct{}) (string, error) {
+		work: func(path string, res editor.Result, _ exportSettings, _ func(int, int), _ <-chan struct{}) (string, error) {
 			in := exportInput(res)
 			return "glTF animation", fsutil.WriteAtomic(path, func(f io.Writer) error {
 				return export.WriteGLTF(f, in, export.GLTFOptions{Binary: true})
@@ -91,11 +105,11 @@ func gltfJob() exportJob {
 		}}
 }
 
-func (w *Window) pngJob() exportJob {
+func pngJob() exportJob {
 	return exportJob{title: "Take as PNG Frames", ext: "",
-		work: func(dir string, res editor.Result, progress func(int, int), cancel <-chan struct{}) (string, error) {
-			view := w.view.preview.View()
-			opt := export.PNGOptions{Width: 1280, Height: 720, View: view, Twos: w.throw.onTwos(), Transparent: true, Cancel: cancel}
+		work: func(dir string, res editor.Result, set exportSettings, progress func(int, int), cancel <-chan struct{}) (string, error) {
+			view := set.view
+			opt := export.PNGOptions{Width: 1280, Height: 720, View: view, Twos: set.twos, Transparent: true, Cancel: cancel}
 			files, err := export.WritePNGSequence(dir, exportInput(res), opt, progress)
 			if errors.Is(err, export.ErrCancelled) {
 				return "", errExportCancelled
@@ -149,11 +163,7 @@ func (w *Window) startExport(j exportJob) {
 		}
 		path := wc.URI().Path()
 		wc.Close() // written atomically by the job, not through wc
-		if !strings.EqualFold(filepath.Ext(path), j.ext) {
-			os.Remove(path) // the empty file the dialog made
-			path += j.ext
-		}
-		w.runExport(j, path, res)
+		withExtension(w, path, j.ext, "", func(path string) { w.runExport(j, path, res) })
 	}, w.win)
 	d.SetFileName(name + j.ext)
 	d.SetFilter(storage.NewExtensionFileFilter([]string{j.ext}))
@@ -189,21 +199,23 @@ func (w *Window) runExport(j exportJob, path string, res editor.Result) {
 			w.showInfo("Exported", fmt.Sprintf("Wrote the %s to %s.", what, path))
 		}
 	}
+	set := w.exportSettings()
 	if w.synchronous {
-		what, err := j.work(path, res, func(int, int) {}, cancel)
+		what, err := j.work(path, res, set, func(int, int) {}, cancel)
 		done(what, err)
 		return
 	}
 	d.Show()
+	do := w.do
 	go func() {
-		what, err := j.work(path, res, func(n, total int) {
-			fyne.Do(func() {
+		what, err := j.work(path, res, set, func(n, total int) {
+			do(func() {
 				if total > 0 {
 					bar.SetValue(float64(n) / float64(total))
 				}
 			})
 		}, cancel)
-		fyne.Do(func() { done(what, err) })
+		do(func() { done(what, err) })
 	}()
 }
 

@@ -1,10 +1,12 @@
 package ui
 
 import (
+	"bytes"
 	"os"
 	"path/filepath"
 	"strings"
 	"testing"
+	"time"
 
 	"propflight/app/export"
 	"propflight/assets"
@@ -27,21 +29,51 @@ func TestWindow_Export_WritesEachFormat(t *testing.T) {
 			t.Errorf("%s: %d bytes, %v", name, len(b), err)
 		}
 	}
-	w.runExport(w.sheetJob("a4"), filepath.Join(dir, "pan.pdf"), w.good)
+	w.runExport(sheetJob("a4"), filepath.Join(dir, "pan.pdf"), w.good)
 	check("pan.pdf", func(b []byte) bool { return strings.HasPrefix(string(b), "%PDF-") })
-	w.runExport(w.csvJob(), filepath.Join(dir, "pan.csv"), w.good)
+	w.runExport(csvJob(), filepath.Join(dir, "pan.csv"), w.good)
 	check("pan.csv", func(b []byte) bool {
 		return strings.HasPrefix(string(b), export.CSVHeader+"\n") && strings.Count(string(b), "\n") == frames+1
 	})
 	w.runExport(gltfJob(), filepath.Join(dir, "pan.glb"), w.good)
 	check("pan.glb", func(b []byte) bool { return len(b) > 12 && string(b[:4]) == "glTF" })
-	w.runExport(w.pngJob(), filepath.Join(dir, "frames"), w.good)
+	w.runExport(pngJob(), filepath.Join(dir, "frames"), w.good)
 	if entries, _ := os.ReadDir(filepath.Join(dir, "frames")); len(entries) != frames {
 		t.Errorf("png: %d files for %d frames", len(entries), frames)
 	}
 	// A folder that cannot be written: an error dialog naming the file.
-	w.runExport(w.csvJob(), filepath.Join(dir, "missing", "pan.csv"), w.good)
+	w.runExport(csvJob(), filepath.Join(dir, "missing", "pan.csv"), w.good)
 	if w.lastDialog == nil || w.lastDialog.title != "Export failed" || !strings.Contains(w.lastDialog.message, "pan.csv") {
 		t.Errorf("bad folder: dialog %+v", w.lastDialog)
+	}
+}
+
+// TestWindow_Export_SettingsTakenAtStart: an export runs off the UI
+// goroutine and uses the settings the controls had when it started; a
+// control changed while it runs (here the timing, to twos) is not read
+// from the export's goroutine (go test -race reports such a read).
+func TestWindow_Export_SettingsTakenAtStart(t *testing.T) {
+	w := newTestWindow(t, assets.Demo)
+	queue := make(chan func(), 64)
+	w.synchronous, w.do = false, func(f func()) { queue <- f }
+	path := filepath.Join(t.TempDir(), "pan.csv")
+	w.runExport(csvJob(), path, w.good)
+	w.throw.twos.SetSelected(timingOnTwos) // while the export runs
+	deadline := time.After(time.Minute)
+	for w.lastDialog == nil || w.lastDialog.title != "Exported" {
+		select {
+		case f := <-queue:
+			f()
+		case <-deadline:
+			t.Fatalf("the export never finished: %+v", w.lastDialog)
+		}
+	}
+	w.synchronous = true
+	var want bytes.Buffer
+	if err := export.WriteCSV(&want, w.good.Take); err != nil {
+		t.Fatal(err)
+	}
+	if got, err := os.ReadFile(path); err != nil || !bytes.Equal(got, want.Bytes()) {
+		t.Errorf("the CSV is not the take on ones as set at the start (%v)", err)
 	}
 }

@@ -48,7 +48,6 @@ func (w *Window) replace(doc *project.Document, path, preset string) {
 // afterReplace shows a project that just replaced the old one.
 func (w *Window) afterReplace(preset string) {
 	w.stopPlayback()
-	w.baseline, _ = project.Marshal(w.ed.Doc())
 	w.preset = preset
 	w.props.showPreset(preset)
 	w.props.selected = 0
@@ -139,19 +138,63 @@ func (w *Window) saveAs(then func()) {
 			return // cancelled
 		}
 		path := wc.URI().Path()
-		wc.Close() // the file is written atomically below, not through wc
-		if !strings.EqualFold(filepath.Ext(path), ".json") {
-			os.Remove(path) // the empty file the dialog made
-			path += ".json"
-		}
-		if w.saveTo(path) && then != nil {
-			then()
-		}
+		wc.Close() // the file is written atomically by saveTo, not through wc
+		w.savePicked(path, then)
 	}, w.win)
 	d.SetFileName(safeFileName(projectName(w.ed.Doc(), w.ed.Path())) + ".json")
 	d.SetFilter(storage.NewExtensionFileFilter([]string{".json"}))
 	w.startIn(d)
 	d.Resize(fileDialogSize)
+	d.Show()
+}
+
+// savePicked saves to the file the save dialog gave, path (see
+// withExtension).
+func (w *Window) savePicked(path string, then func()) {
+	withExtension(w, path, ".json", w.ed.Path(), func(path string) {
+		if w.saveTo(path) && then != nil {
+			then()
+		}
+	})
+}
+
+// withExtension runs write on the path a save dialog gave, path, with
+// extension ext (such as ".json") added when it lacks it. The dialog asked
+// about overwriting the name as typed, not that one, so an existing file of
+// the new name (other than own, the file being written over on purpose) is
+// written only after the user says so (confirmReplace). The empty file the
+// dialog made under the typed name is removed.
+func withExtension(w *Window, path, ext, own string, write func(path string)) {
+	if strings.EqualFold(filepath.Ext(path), ext) {
+		write(path)
+		return
+	}
+	if fi, err := os.Stat(path); err == nil && fi.Mode().IsRegular() && fi.Size() == 0 {
+		os.Remove(path) // the empty file the dialog made
+	}
+	path += ext
+	if _, err := os.Stat(path); err != nil || (own != "" && filepath.Clean(path) == filepath.Clean(own)) {
+		write(path)
+		return
+	}
+	w.confirmReplace(path, func() { write(path) })
+}
+
+// confirmReplace asks before replacing the existing file path; replace
+// runs on Replace.
+func (w *Window) confirmReplace(path string, replace func()) {
+	title := "Replace " + filepath.Base(path) + "?"
+	msg := widget.NewLabel(fmt.Sprintf("%s already exists in %s. Saving replaces it.", filepath.Base(path), filepath.Dir(path)))
+	msg.Wrapping = fyne.TextWrapWord
+	d := dialog.NewCustomWithoutButtons(title, sized(msg, 420, 0), w.win)
+	choose := map[string]func(){
+		"Replace": func() { d.Hide(); replace() },
+		"Cancel":  func() { d.Hide() },
+	}
+	rep := widget.NewButton("Replace", choose["Replace"])
+	rep.Importance = widget.DangerImportance
+	d.SetButtons([]fyne.CanvasObject{widget.NewButton("Cancel", choose["Cancel"]), rep})
+	w.lastDialog = &shownDialog{title: title, message: msg.Text, d: d, choose: choose}
 	d.Show()
 }
 
@@ -178,9 +221,9 @@ func safeFileName(name string) string {
 }
 
 // saveTo saves the project at path atomically and reports success; a
-// failure shows an error dialog and leaves the old file whole.
+// failure shows an error dialog and leaves the old file whole. The editor
+// keeps a relative footage path naming the same clip (editor.Save).
 func (w *Window) saveTo(path string) bool {
-	w.rebaseFootage(path)
 	if err := w.ed.Save(path); err != nil {
 		w.showError("Could not save "+filepath.Base(path), err)
 		return false

@@ -56,8 +56,10 @@ type footagePane struct {
 	frameLabel *widget.Label
 
 	seq     *footage.Sequence
-	seqKey  string // the folder or GIF and the rate seq was opened with
+	seqKey  string // the folder or GIF and the rate seq was opened with, or is being opened with
 	loadErr error  // the footage the document names could not be opened
+	opening string // the folder or GIF being opened off the UI goroutine, "" when none
+	loadGen int    // counts load calls: only the latest one's footage is used
 	frame   int    // the footage frame shown
 	// takeFrame is the take frame the footage last followed: the footage
 	// frame changes with the take only when the take moves to another
@@ -253,28 +255,41 @@ func (p *footagePane) sync(d *project.Document) {
 	fo := d.Footage
 	dir := d.FootageDir(p.w.ed.Path())
 	if fo == nil {
-		p.seq, p.seqKey, p.loadErr = nil, "", nil
+		p.seq, p.seqKey, p.loadErr, p.opening = nil, "", nil, ""
 		p.view.SetSource(nil)
 	} else if key := seqKey(dir, d); key != p.seqKey {
 		rate, _, err := d.FootageRate()
 		if err != nil {
 			rate = physics.Rate{}
 		}
-		seq, err := footage.Open(dir, footage.Options{FPS: rate})
-		p.seq, p.seqKey, p.loadErr = seq, key, err
-		p.takeFrame = -1 // another clip or rate: follow the take afresh
-		if err != nil {
-			p.seq = nil
-			p.view.SetSource(nil)
-		} else {
-			p.view.SetSource(seq)
-		}
+		// Another clip or rate: close the old one and open this one off
+		// the UI goroutine; the pane is set again when it opens, if the
+		// document still names it.
+		p.seq, p.seqKey, p.loadErr, p.opening = nil, key, nil, dir
+		p.view.SetSource(nil)
+		p.takeFrame = -1 // follow the take afresh
+		p.openFootage(dir, rate, func(seq *footage.Sequence, err error) {
+			if p.seqKey != key {
+				return // the document names another clip since
+			}
+			p.seq, p.loadErr, p.opening = seq, err, ""
+			if err == nil {
+				p.view.SetSource(seq)
+			}
+			p.takeFrame = -1
+			if !p.w.synchronous { // a synchronous open is still inside this sync
+				p.resync()
+			}
+		})
 	}
 	p.w.showFootageSide(fo != nil)
 	p.setEnabled(fo != nil)
 
 	p.path.SetText(dir)
 	switch {
+	case p.opening != "":
+		p.status.Importance = widget.MediumImportance
+		p.status.SetText("Opening " + p.opening + "…")
 	case p.loadErr != nil:
 		p.status.Importance = widget.DangerImportance
 		p.status.SetText(errorText(p.loadErr))

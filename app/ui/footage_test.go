@@ -9,6 +9,7 @@ import (
 	"path/filepath"
 	"strings"
 	"testing"
+	"time"
 
 	"fyne.io/fyne/v2"
 	"fyne.io/fyne/v2/driver/desktop"
@@ -368,6 +369,7 @@ func TestFootage_SavedRelative(t *testing.T) {
 	tapImage(t, w, x, y, false)
 	path := filepath.Join(root, "shots", "board.json")
 	os.MkdirAll(filepath.Dir(path), 0o755)
+	undo := w.ed.UndoLabel()
 	if !w.saveTo(path) {
 		t.Fatalf("save failed: %v", w.lastDialog)
 	}
@@ -375,6 +377,26 @@ func TestFootage_SavedRelative(t *testing.T) {
 	if !strings.Contains(string(data), `"path": "../plates/clip"`) {
 		t.Errorf("saved file:\n%s", data)
 	}
+	// The rewrite of the path is part of the save: no undo step of its
+	// own, and the project is clean.
+	if got := w.ed.UndoLabel(); got != undo || w.dirty() || strings.Contains(w.win.Title(), "•") {
+		t.Errorf("after save: undo %q (want %q), dirty %v, title %q", got, undo, w.dirty(), w.win.Title())
+	}
+	// Save as into another folder keeps the same clip, again without a step.
+	other := filepath.Join(root, "elsewhere", "deep", "board.json")
+	os.MkdirAll(filepath.Dir(other), 0o755)
+	if !w.saveTo(other) || w.ed.UndoLabel() != undo || w.dirty() {
+		t.Fatalf("save as: %v, undo %q, dirty %v", w.lastDialog, w.ed.UndoLabel(), w.dirty())
+	}
+	if got := w.ed.Doc().Footage.Path; got != "../../plates/clip" || w.footage.seq == nil || w.footage.loadErr != nil {
+		t.Errorf("after save as: footage.path %q, sequence %v, error %v", got, w.footage.seq != nil, w.footage.loadErr)
+	}
+	// Undo of the mark after the move still names the clip.
+	w.undo()
+	if got := w.ed.Doc().FootageDir(other); got != clip.dir || w.footage.loadErr != nil {
+		t.Errorf("undo after save as: footage %q, error %v", got, w.footage.loadErr)
+	}
+	w.redo()
 	w.replace(emptyDocument(), "", "")
 	if w.footage.seq != nil || len(w.centre.Objects) != 1 || w.centre.Objects[0] != w.view.preview {
 		t.Error("a project without footage still shows footage")
@@ -416,5 +438,117 @@ func TestFootage_OtherRate(t *testing.T) {
 	goToFootage(w, 8)
 	if w.frame != 10 || w.footage.frame != 8 {
 		t.Errorf("footage frame 8: take frame %d, footage %d", w.frame, w.footage.frame)
+	}
+}
+
+// TestFootage_ApplyIrregularTurn_Asks: marks whose second points turn
+// unevenly (a tumble seen on screen) give an "irregular" turn; Apply then
+// asks before writing the on-screen rate as the spin, and each answer does
+// what it says.
+func TestFootage_ApplyIrregularTurn_Asks(t *testing.T) {
+	w := boardWindow(t)
+	clip := makeClip(t, filepath.Join(t.TempDir(), "clip"))
+	if !w.footage.load(clip.dir) {
+		t.Fatalf("load failed: %v", w.lastDialog)
+	}
+	// The prop line's direction on each marked frame, degrees: it lurches
+	// forward and back (RMS tens of degrees off any steady turn, far over
+	// footage.SteadyMaxRMSDeg).
+	angles := []float64{0, 70, 20, 150, 60, 200}
+	for i, k := range markedFrames {
+		goToFootage(w, k)
+		x, y, _, _ := clip.clicks(k)
+		a := angles[i] * math.Pi / 180
+		tapImage(t, w, x, y, false)
+		tapImage(t, w, x+30*math.Cos(a), y-30*math.Sin(a), true)
+	}
+	test.Tap(w.footage.fitBtn)
+	if !strings.Contains(w.footage.fitText, "the turn is: irregular") || !strings.Contains(w.footage.fitText, "rough on-screen turn rate") {
+		t.Fatalf("fit report does not call the turn irregular and rough:\n%s", w.footage.fitText)
+	}
+	before := docBytes(t, w)
+	spinBefore := w.ed.Doc().Throw.Spin.TurnsPerSecond
+	w.lastDialog = nil
+	test.Tap(w.footage.applyBtn)
+	d := w.lastDialog
+	if d == nil || d.choose == nil || !strings.Contains(d.message, "irregular") || !strings.Contains(d.message, "rough on-screen turn rate") {
+		t.Fatalf("Apply of an irregular turn did not ask: %+v", d)
+	}
+	if !bytes.Equal(docBytes(t, w), before) {
+		t.Fatal("the throw changed before the user answered")
+	}
+	d.choose["Cancel"]()
+	if !bytes.Equal(docBytes(t, w), before) {
+		t.Fatal("Cancel changed the throw")
+	}
+
+	test.Tap(w.footage.applyBtn)
+	w.lastDialog.choose["Velocity only"]()
+	th := w.ed.Doc().Throw
+	if th.ReleaseVelocity == nil || math.Hypot(th.ReleaseVelocity[0]-clipVel[0], th.ReleaseVelocity[1]-clipVel[1]) > 0.02*math.Hypot(clipVel[0], clipVel[1]) {
+		t.Errorf("velocity only: release velocity %v, want about %v", th.ReleaseVelocity, clipVel)
+	}
+	if th.Spin == nil || th.Spin.TurnsPerSecond == nil || *th.Spin.TurnsPerSecond != *spinBefore {
+		t.Errorf("velocity only changed the spin: %+v", th.Spin)
+	}
+	w.undo()
+	if !bytes.Equal(docBytes(t, w), before) {
+		t.Fatal("undo of velocity only did not restore the throw")
+	}
+
+	test.Tap(w.footage.applyBtn)
+	w.lastDialog.choose["Apply the rough rate too"]()
+	ts, _ := w.footage.fit.ThrowAt(w.footage.offsetFrames(), w.footage.fit.MetresPerPixel)
+	if s := w.ed.Doc().Throw.Spin; s == nil || s.TurnsPerSecond == nil || *s.TurnsPerSecond != ts.TurnsPerSecond {
+		t.Errorf("rough rate too: spin %+v, want %g turns/s", s, ts.TurnsPerSecond)
+	}
+}
+
+// TestFootage_OpensOffTheUIGoroutine: footage opens on another goroutine
+// (a GIF is decoded whole, a folder has every header read); the pane says
+// so meanwhile and the project changes only when it has opened. A later
+// load supersedes one still opening, and Redo of "Load footage" opens the
+// clip again the same way.
+func TestFootage_OpensOffTheUIGoroutine(t *testing.T) {
+	w := boardWindow(t)
+	root := t.TempDir()
+	clip := makeClip(t, filepath.Join(root, "clip"))
+	other := makeClip(t, filepath.Join(root, "other"))
+	queue := make(chan func(), 16)
+	w.synchronous, w.do = false, func(f func()) { queue <- f }
+	defer func() { w.synchronous = true }()
+	runQueued := func() {
+		t.Helper()
+		select {
+		case f := <-queue:
+			f()
+		case <-time.After(time.Minute):
+			t.Fatal("the footage never opened")
+		}
+	}
+	before := docBytes(t, w)
+	if !w.footage.load(other.dir) || !w.footage.load(clip.dir) {
+		t.Fatal("load did not start")
+	}
+	if !bytes.Equal(docBytes(t, w), before) || w.footage.seq != nil || !strings.HasPrefix(w.footage.status.Text, "Opening ") {
+		t.Fatalf("before the footage opened: project changed %v, sequence %v, status %q",
+			!bytes.Equal(docBytes(t, w), before), w.footage.seq != nil, w.footage.status.Text)
+	}
+	runQueued()
+	runQueued()
+	if w.footage.seq == nil || w.footage.seq.Path() != clip.dir || w.ed.Doc().FootageDir("") != clip.dir || w.ed.UndoLabel() != "Load footage" {
+		t.Fatalf("after opening: sequence %v, footage %q, undo %q", w.footage.seq != nil, w.ed.Doc().FootageDir(""), w.ed.UndoLabel())
+	}
+	w.undo()
+	if w.footage.seq != nil || w.ed.Doc().Footage != nil {
+		t.Fatal("undo of the load kept the footage")
+	}
+	w.redo()
+	if w.footage.seq != nil || !strings.HasPrefix(w.footage.status.Text, "Opening ") {
+		t.Fatalf("redo opened the clip on the UI goroutine (status %q)", w.footage.status.Text)
+	}
+	runQueued()
+	if w.footage.seq == nil || w.footage.seq.Path() != clip.dir || !strings.Contains(w.footage.status.Text, "frames") {
+		t.Errorf("after redo: sequence %v, status %q", w.footage.seq != nil, w.footage.status.Text)
 	}
 }

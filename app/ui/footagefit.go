@@ -6,6 +6,7 @@ import (
 	"strings"
 
 	"fyne.io/fyne/v2"
+	"fyne.io/fyne/v2/dialog"
 	"fyne.io/fyne/v2/widget"
 
 	"propflight/app/footage"
@@ -112,11 +113,20 @@ func (p *footagePane) fitRows() ([]fitRow, error) {
 		}
 		rows = append(rows,
 			fitRow{"turn", fmt.Sprintf("%s°/frame %s, %s turns/s", sig(r.TurnDegPerFrame), sense, sig(math.Abs(r.TurnDegPerFrame)*fpsF/360))},
-			fitRow{"the turn is", fmt.Sprintf("%s (%s° RMS off a steady turn)", r.Hint, sig(r.TurnRMSDeg))})
+			fitRow{"the turn is", turnHintText(r.Hint, r.TurnRMSDeg)})
 	} else {
 		rows = append(rows, fitRow{"turn", fmt.Sprintf("needs %d marks with a second point (%d so far)", footage.MinTurnMarks, r.TurnMarks)})
 	}
 	return rows, nil
+}
+
+// turnHintText words the fit's turn hint with its RMS (degrees); an
+// irregular turn says that its rate is only a rough on-screen one.
+func turnHintText(hint string, rms float64) string {
+	if hint == footage.HintIrregular {
+		return fmt.Sprintf("irregular (%s° RMS off a steady turn): a tumble or wobble on screen, so the rate is only a rough on-screen turn rate", sig(rms))
+	}
+	return fmt.Sprintf("%s (%s° RMS off a steady turn)", hint, sig(rms))
 }
 
 // fitReport is the fit as text, one "label: value" a line, as the panel
@@ -154,7 +164,10 @@ func (p *footagePane) showFitRows() {
 }
 
 // applyFit sets the throw from the fit at the release frame: its release
-// velocity and spin rate, in one undo step.
+// velocity and spin rate, in one undo step. When the footage's turn is
+// irregular (a tumble or a wobble seen on screen) the fitted turn is only
+// the mean rate of the prop line on the screen, not the spin |omega| at
+// release, so the window asks first (confirmIrregular).
 func (p *footagePane) applyFit() {
 	p.refit()
 	if p.fitErr != nil {
@@ -166,8 +179,55 @@ func (p *footagePane) applyFit() {
 		p.w.showError("Cannot apply the fit", err)
 		return
 	}
+	if ts.HasSpin && p.fit.Hint == footage.HintIrregular {
+		p.confirmIrregular(ts)
+		return
+	}
+	p.applyThrow(ts)
+}
+
+// applyThrow sets the throw from ts as one undo step.
+func (p *footagePane) applyThrow(ts footage.ThrowSettings) {
 	rate := p.w.rate()
 	p.w.editAndSync("Apply the footage fit to the throw", func(d *project.Document) error {
 		return applyFitToThrow(d, ts, rate)
 	})
+}
+
+// irregularTurnText explains, before Apply, why an irregular turn gives
+// only a rough spin rate; rms is the turn's RMS off a steady turn, degrees.
+func irregularTurnText(turnsPerSecond, rms float64) string {
+	return fmt.Sprintf("The footage's turn is irregular: the marked directions are %s° RMS off a steady turn, "+
+		"as when the prop tumbles or wobbles on screen. The fitted %s turns/s is only a rough on-screen turn rate "+
+		"(the mean turn of the prop line in the picture), not the spin rate at release.\n\n"+
+		"Apply the release velocity only, or also set the spin to this rough rate?",
+		sig(rms), sig(turnsPerSecond))
+}
+
+// confirmIrregular asks whether to apply a fit whose turn is irregular:
+// the velocity only, the velocity and the rough rate, or nothing.
+func (p *footagePane) confirmIrregular(ts footage.ThrowSettings) {
+	const title = "The footage's turn is irregular"
+	msg := widget.NewLabel(irregularTurnText(ts.TurnsPerSecond, p.fit.TurnRMSDeg))
+	msg.Wrapping = fyne.TextWrapWord
+	d := dialog.NewCustomWithoutButtons(title, sized(msg, 460, 0), p.w.win)
+	velocityOnly := ts
+	velocityOnly.HasSpin = false
+	choose := map[string]func(){
+		"Cancel":        func() { d.Hide() },
+		"Velocity only": func() { d.Hide(); p.applyThrow(velocityOnly) },
+		"Apply the rough rate too": func() {
+			d.Hide()
+			p.applyThrow(ts)
+		},
+	}
+	vel := widget.NewButton("Velocity only", choose["Velocity only"])
+	vel.Importance = widget.HighImportance
+	d.SetButtons([]fyne.CanvasObject{
+		widget.NewButton("Cancel", choose["Cancel"]),
+		widget.NewButton("Apply the rough rate too", choose["Apply the rough rate too"]),
+		vel,
+	})
+	p.w.lastDialog = &shownDialog{title: title, message: msg.Text, d: d, choose: choose}
+	d.Show()
 }

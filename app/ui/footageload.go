@@ -10,6 +10,7 @@ import (
 	"fyne.io/fyne/v2"
 	"fyne.io/fyne/v2/dialog"
 	"fyne.io/fyne/v2/storage"
+	"fyne.io/fyne/v2/widget"
 
 	"propflight/app/footage"
 	"propflight/app/project"
@@ -17,8 +18,8 @@ import (
 )
 
 // This file is where the footage pane gets its clip: the folder and GIF
-// dialogs, the typed path, the footage's frame rate, and keeping the
-// saved path relative to the project file.
+// dialogs, the typed path and the footage's frame rate. (A save keeps a
+// relative footage path naming the same clip: editor.Save.)
 
 // browseFolder asks for a folder of frames.
 func (p *footagePane) browseFolder() {
@@ -72,6 +73,12 @@ func (p *footagePane) startIn(d interface{ SetLocation(fyne.ListableURI) }) {
 // it opens, makes it the project's footage (one undo step; the marks of
 // another clip are dropped). Footage that cannot be opened shows an error
 // dialog naming the file, and the project stays as it was.
+//
+// Opening reads every frame's header, or decodes a whole GIF, which can
+// take seconds: it runs off the UI goroutine (openFootage) and the pane
+// says so meanwhile; a later load supersedes one still opening. load
+// reports whether the footage opened (in a synchronous test window) or
+// the opening started.
 func (p *footagePane) load(path string) bool {
 	path = strings.TrimSpace(path)
 	if path == "" {
@@ -83,13 +90,31 @@ func (p *footagePane) load(path string) bool {
 	if err != nil {
 		rate = physics.Rate{}
 	}
-	seq, err := footage.Open(path, footage.Options{FPS: rate})
+	key := seqKey(path, doc)
+	p.loadGen++
+	gen := p.loadGen
+	opened := false
+	p.status.Importance = widget.MediumImportance
+	p.status.SetText("Opening " + path + "…")
+	p.openFootage(path, rate, func(seq *footage.Sequence, err error) {
+		if gen != p.loadGen {
+			return // another load since
+		}
+		opened = p.loaded(path, key, seq, err)
+	})
+	return opened || !p.w.synchronous
+}
+
+// loaded finishes load: the footage opened from path (as key), or err.
+func (p *footagePane) loaded(path, key string, seq *footage.Sequence, err error) bool {
 	if err != nil {
+		p.resync() // the status as it was
 		p.w.showError("Could not load footage", fmt.Errorf("%w\n\nThe project is unchanged.", err))
 		return false
 	}
+	doc := p.w.ed.Doc()
 	same := doc.Footage != nil && filepath.Clean(doc.FootageDir(p.w.ed.Path())) == filepath.Clean(path)
-	p.seq, p.seqKey, p.loadErr = seq, seqKey(path, doc), nil
+	p.seq, p.seqKey, p.loadErr, p.opening = seq, key, nil, ""
 	p.view.SetSource(seq)
 	p.takeFrame = -1
 	p.edit("Load footage", "", true, func(d *project.Document) error {
@@ -100,6 +125,33 @@ func (p *footagePane) load(path string) bool {
 		return nil
 	})
 	return true
+}
+
+// openFootage opens the footage at path at rate (zero: the clip's own)
+// off the UI goroutine and calls done with the result on the UI goroutine,
+// unless the window has closed by then. A synchronous (test) window opens
+// it at once and calls done before returning.
+func (p *footagePane) openFootage(path string, rate physics.Rate, done func(*footage.Sequence, error)) {
+	if p.w.synchronous {
+		done(footage.Open(path, footage.Options{FPS: rate}))
+		return
+	}
+	w := p.w
+	go func() {
+		seq, err := footage.Open(path, footage.Options{FPS: rate})
+		w.do(func() {
+			if !w.closed {
+				done(seq, err)
+			}
+		})
+	}()
+}
+
+// resync sets the pane from the document again.
+func (p *footagePane) resync() {
+	p.w.syncing++
+	p.sync(p.w.ed.Doc())
+	p.w.syncing--
 }
 
 // seqKey names what a sequence is opened from: the folder or GIF and the
@@ -167,24 +219,4 @@ func (p *footagePane) footageFPS() *project.FrameRate {
 		return frameRateOf(p.seq.FPS())
 	}
 	return nil
-}
-
-// rebaseFootage keeps a relative footage path pointing at the same clip
-// when the project is saved to path: one undo step, only when the path
-// changes.
-func (w *Window) rebaseFootage(path string) {
-	d := w.ed.Doc()
-	if d.Footage == nil {
-		return
-	}
-	old := d.Footage.Path
-	dir := d.FootageDir(w.ed.Path())
-	d.SetFootagePath(path, dir)
-	if d.Footage.Path == old {
-		return
-	}
-	w.edit("Keep the footage path", "", true, func(d *project.Document) error {
-		d.SetFootagePath(path, dir)
-		return nil
-	})
 }

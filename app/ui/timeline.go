@@ -33,8 +33,10 @@ func newTimelinePane(w *Window) *timelinePane {
 	t.timeline = widgets.NewTimeline(func(n int) {
 		w.stopPlayback()
 		w.setFrame(n)
-		t.releaseFocus()
 	})
+	// With the focus after a tap the timeline steps frames itself and
+	// hands on the rest: Space plays and pauses as everywhere else.
+	t.timeline.OnOtherKey = w.frameKey
 	t.play = widget.NewButtonWithIcon("play", theme.MediaPlayIcon(), w.togglePlayback)
 	t.play.Importance = widget.HighImportance
 	step := func(icon fyne.Resource, f func()) *widget.Button { return widget.NewButtonWithIcon("", icon, f) }
@@ -49,25 +51,6 @@ func newTimelinePane(w *Window) *timelinePane {
 	bar := container.NewHBox(home, back, t.play, fwd, end, t.loop, layout.NewSpacer(), t.frame, t.timecode)
 	t.content = container.NewVBox(t.timeline, bar)
 	return t
-}
-
-// releaseFocus gives the keyboard back to the window after the timeline
-// took it with a tap, so that Space plays and pauses as everywhere else
-// (the window's own keys step frames as the timeline's do). The timeline
-// focuses itself after reporting the tap, so the unfocus runs just after
-// the event, through fyne.Do. Tests (synchronous windows) skip it: there
-// fyne.Do would run on the new goroutine.
-func (t *timelinePane) releaseFocus() {
-	if t.w.synchronous {
-		return
-	}
-	c := t.w.win.Canvas()
-	tl := t.timeline
-	go fyne.Do(func() {
-		if c.Focused() == fyne.Focusable(tl) {
-			c.Unfocus()
-		}
-	})
 }
 
 // setTake follows a new take: its frames, rate and marks.

@@ -1,7 +1,6 @@
 package ui
 
 import (
-	"bytes"
 	"errors"
 	"fmt"
 	"path/filepath"
@@ -35,6 +34,9 @@ type Window struct {
 	// synchronous is set for tests: recomputes run on the UI goroutine
 	// and nothing is deferred through fyne.Do.
 	synchronous bool
+	// do runs a function on the UI goroutine from another one: fyne.Do,
+	// or a test's stand-in.
+	do func(func())
 
 	requested uint64        // sequence number of the last request
 	applied   uint64        // sequence number of the last result applied
@@ -57,7 +59,6 @@ type Window struct {
 	split    *container.Split // preview | footage
 
 	preset     string       // the preset the project came from, "" for a file or a new one
-	baseline   []byte       // the project as opened, loaded or started: what "unsaved" compares against when it has no file
 	lastDialog *shownDialog // the last dialog shown (for tests)
 }
 
@@ -167,13 +168,14 @@ func newWindowWith(a fyne.App, doc *project.Document, path string, opt windowOpt
 	w := &Window{app: a, ed: ed, thr: physics.DefaultThresholds()}
 	w.play.loop = true
 	w.synchronous = opt.synchronous
+	w.do = opt.do
+	if w.do == nil {
+		w.do = fyne.Do
+	}
 	if opt.synchronous {
 		w.comp = &syncComputer{deliver: w.apply}
 	} else {
-		do := opt.do
-		if do == nil {
-			do = fyne.Do
-		}
+		do := w.do
 		w.comp = editor.NewWorker(func(res editor.Result) {
 			do(func() { w.apply(res) })
 		})
@@ -183,7 +185,6 @@ func newWindowWith(a fyne.App, doc *project.Document, path string, opt windowOpt
 	} else {
 		w.recent = editor.LoadRecent("")
 	}
-	w.baseline, _ = project.Marshal(w.ed.Doc())
 	w.win = a.NewWindow("Propflight")
 	w.build()
 	w.win.Resize(fyne.NewSize(1560, 960))
@@ -390,17 +391,9 @@ func projectName(d *project.Document, path string) string {
 func (w *Window) updateTitle() { w.win.SetTitle(w.title()) }
 
 // dirty reports whether closing or replacing the project would lose
-// changes: for a project with a file, changes since it was opened or last
-// saved (editor.Dirty); for a preset or a new project never saved,
-// changes since it was loaded, so an untouched demo closes without a
-// question.
-func (w *Window) dirty() bool {
-	if w.ed.Path() != "" {
-		return w.ed.Dirty()
-	}
-	now, err := project.Marshal(w.ed.Doc())
-	return err != nil || !bytes.Equal(now, w.baseline)
-}
+// changes: changes since it was opened, started or last saved
+// (editor.Dirty), so an untouched demo closes without a question.
+func (w *Window) dirty() bool { return w.ed.Dirty() }
 
 // fieldSet collects the number fields of one panel so that the imperial
 // toggle reaches them all.

@@ -211,6 +211,36 @@ func TestWindow_Scrub_ChangesFrameAndPreview(t *testing.T) {
 	}
 }
 
+// TestWindow_TimelineFocused_SpacePlays: a tap gives the timeline the
+// keyboard; it steps frames itself and hands Space on, so Space plays and
+// pauses there as everywhere else.
+func TestWindow_TimelineFocused_SpacePlays(t *testing.T) {
+	w := newTestWindow(t, "frying-pan")
+	tl := w.timeline.timeline
+	test.TapAt(tl, fyne.NewPos(tl.Size().Width*0.25, tl.Size().Height/2))
+	c := w.win.Canvas()
+	if c.Focused() != fyne.Focusable(tl) {
+		t.Fatalf("the tapped timeline does not have the focus (%v)", c.Focused())
+	}
+	n := w.frame
+	c.Focused().TypedKey(&fyne.KeyEvent{Name: fyne.KeyRight})
+	if w.frame != n+1 {
+		t.Errorf("Right on the timeline: frame %d, want %d", w.frame, n+1)
+	}
+	c.Focused().TypedKey(&fyne.KeyEvent{Name: fyne.KeySpace})
+	playing := w.play.on
+	w.stopPlayback()
+	if !playing {
+		t.Error("Space on the focused timeline did not play")
+	}
+	w.startPlayback()
+	c.Focused().TypedKey(&fyne.KeyEvent{Name: fyne.KeySpace})
+	if w.play.on {
+		w.stopPlayback()
+		t.Error("Space on the focused timeline did not pause")
+	}
+}
+
 func TestWindow_TypedKey_IgnoredWhileEntryFocused(t *testing.T) {
 	w := newTestWindow(t, "frying-pan")
 	w.win.Canvas().Focus(w.props.name)
@@ -676,5 +706,48 @@ func TestFramesIn_TrueRate(t *testing.T) {
 		if got := framesIn(c.d, r); got != c.want {
 			t.Errorf("framesIn(%v, %v) = %d, want %d", c.d, r, got, c.want)
 		}
+	}
+}
+
+// TestWindow_SaveAs_NameWithoutJSON_AsksBeforeReplacing: the save dialog
+// asks about overwriting the name as typed ("pan"), which it creates
+// empty; the window saves to pan.json, so an existing pan.json is replaced
+// only after its own question.
+func TestWindow_SaveAs_NameWithoutJSON_AsksBeforeReplacing(t *testing.T) {
+	w := newTestWindow(t, "frying-pan")
+	dir := t.TempDir()
+	typed, target := filepath.Join(dir, "pan"), filepath.Join(dir, "pan.json")
+	old := []byte(`{"format": "propflight/v1", "prop": {"parts": [{"shape": "sphere", "radius": 0.1, "mass": 1}]}}`)
+	if err := os.WriteFile(target, old, 0o644); err != nil {
+		t.Fatal(err)
+	}
+	os.WriteFile(typed, nil, 0o644) // what the dialog leaves under the typed name
+	ran := 0
+	w.savePicked(typed, func() { ran++ })
+	d := w.lastDialog
+	if d == nil || d.title != "Replace pan.json?" || d.choose == nil {
+		t.Fatalf("no question before replacing pan.json: %+v", d)
+	}
+	if data, _ := os.ReadFile(target); !bytes.Equal(data, old) {
+		t.Fatal("pan.json replaced before the user answered")
+	}
+	if _, err := os.Stat(typed); err == nil {
+		t.Error("the empty file the dialog made is still there")
+	}
+	d.choose["Cancel"]()
+	if data, _ := os.ReadFile(target); !bytes.Equal(data, old) || ran != 0 || w.ed.Path() != "" {
+		t.Fatalf("Cancel: file replaced %v, then ran %d, path %q", !bytes.Equal(data, old), ran, w.ed.Path())
+	}
+	w.savePicked(typed, func() { ran++ })
+	w.lastDialog.choose["Replace"]()
+	saved, err := project.Load(target)
+	if err != nil || saved.Name != w.ed.Doc().Name || ran != 1 || w.ed.Path() != target {
+		t.Errorf("Replace: %v, name %q, then ran %d, path %q", err, saved.Name, ran, w.ed.Path())
+	}
+	// Saving to the project's own file needs no question.
+	w.lastDialog = nil
+	w.savePicked(typed, func() { ran++ })
+	if w.lastDialog != nil || ran != 2 {
+		t.Errorf("save over the project's own file asked %+v (then ran %d)", w.lastDialog, ran)
 	}
 }
