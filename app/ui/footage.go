@@ -449,6 +449,8 @@ func (w *Window) showFootageSide(on bool) {
 	}
 	w.centre.Objects = []fyne.CanvasObject{want}
 	w.centre.Refresh()
+	// The preview's width changed a lot: frame the take again in it.
+	w.view.preview.ResetCamera()
 }
 
 // newCentre makes the stack that holds the preview alone or the split of
