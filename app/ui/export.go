@@ -11,7 +11,6 @@ import (
 	"fyne.io/fyne/v2"
 	"fyne.io/fyne/v2/container"
 	"fyne.io/fyne/v2/dialog"
-	"fyne.io/fyne/v2/storage"
 	"fyne.io/fyne/v2/widget"
 
 	"propflight/app/editor"
@@ -153,23 +152,7 @@ func (w *Window) startExport(j exportJob) {
 		d.Show()
 		return
 	}
-	d := dialog.NewFileSave(func(wc fyne.URIWriteCloser, err error) {
-		if err != nil {
-			w.showError("Cannot export", err)
-			return
-		}
-		if wc == nil {
-			return
-		}
-		path := wc.URI().Path()
-		wc.Close() // written atomically by the job, not through wc
-		withExtension(w, path, j.ext, "", func(path string) { w.runExport(j, path, res) })
-	}, w.win)
-	d.SetFileName(name + j.ext)
-	d.SetFilter(storage.NewExtensionFileFilter([]string{j.ext}))
-	w.startIn(d)
-	d.Resize(fileDialogSize)
-	d.Show()
+	w.askSavePath("Export "+strings.ToLower(j.title[:1])+j.title[1:], name, j.ext, "", func(path string) { w.runExport(j, path, res) })
 }
 
 // runExport runs the job's work on its own goroutine behind a progress

@@ -3,7 +3,6 @@ package ui
 import (
 	"errors"
 	"fmt"
-	"os"
 	"path/filepath"
 	"strings"
 
@@ -86,14 +85,7 @@ func (w *Window) openDialog() {
 // startIn points a file dialog at the folder of the project's file, else
 // of the most recent project, else the working folder.
 func (w *Window) startIn(d interface{ SetLocation(fyne.ListableURI) }) {
-	dir := ""
-	if p := w.ed.Path(); p != "" {
-		dir = filepath.Dir(p)
-	} else if files := w.recent.Existing(); len(files) > 0 {
-		dir = filepath.Dir(files[0])
-	} else if wd, err := os.Getwd(); err == nil {
-		dir = wd
-	}
+	dir := w.startDir()
 	if dir == "" {
 		return
 	}
@@ -127,57 +119,34 @@ func (w *Window) save(then func()) {
 	}
 }
 
-// saveAs asks for a file name and saves the project there.
+// saveAs asks for a folder and a file name and saves the project there
+// (askSavePath: nothing is written before the answer, an existing file is
+// replaced only after its own question).
 func (w *Window) saveAs(then func()) {
-	d := dialog.NewFileSave(func(wc fyne.URIWriteCloser, err error) {
-		if err != nil {
-			w.showError("Cannot save", err)
-			return
-		}
-		if wc == nil {
-			return // cancelled
-		}
-		path := wc.URI().Path()
-		wc.Close() // the file is written atomically by saveTo, not through wc
-		w.savePicked(path, then)
-	}, w.win)
-	d.SetFileName(safeFileName(projectName(w.ed.Doc(), w.ed.Path())) + ".json")
-	d.SetFilter(storage.NewExtensionFileFilter([]string{".json"}))
-	w.startIn(d)
-	d.Resize(fileDialogSize)
-	d.Show()
-}
-
-// savePicked saves to the file the save dialog gave, path (see
-// withExtension).
-func (w *Window) savePicked(path string, then func()) {
-	withExtension(w, path, ".json", w.ed.Path(), func(path string) {
+	name := safeFileName(projectName(w.ed.Doc(), w.ed.Path()))
+	if p := w.ed.Path(); p != "" {
+		name = strings.TrimSuffix(filepath.Base(p), filepath.Ext(p)) // propose the file's own name
+	}
+	w.askSavePath("Save project as", name, ".json", w.ed.Path(), func(path string) {
 		if w.saveTo(path) && then != nil {
 			then()
 		}
 	})
 }
 
-// withExtension runs write on the path a save dialog gave, path, with
-// extension ext (such as ".json") added when it lacks it. The dialog asked
-// about overwriting the name as typed, not that one, so an existing file of
-// the new name (other than own, the file being written over on purpose) is
-// written only after the user says so (confirmReplace). The empty file the
-// dialog made under the typed name is removed.
-func withExtension(w *Window, path, ext, own string, write func(path string)) {
-	if strings.EqualFold(filepath.Ext(path), ext) {
-		write(path)
+// savePicked saves to the file named name in folder dir, as the save
+// dialog does once it is answered.
+func (w *Window) savePicked(dir, name string, then func()) {
+	path, err := pickedPath(dir, name, ".json")
+	if err != nil {
+		w.showError("Cannot save", err)
 		return
 	}
-	if fi, err := os.Stat(path); err == nil && fi.Mode().IsRegular() && fi.Size() == 0 {
-		os.Remove(path) // the empty file the dialog made
-	}
-	path += ext
-	if _, err := os.Stat(path); err != nil || (own != "" && filepath.Clean(path) == filepath.Clean(own)) {
-		write(path)
-		return
-	}
-	w.confirmReplace(path, func() { write(path) })
+	w.confirmTarget(path, w.ed.Path(), func(path string) {
+		if w.saveTo(path) && then != nil {
+			then()
+		}
+	})
 }
 
 // confirmReplace asks before replacing the existing file path; replace

@@ -709,36 +709,32 @@ func TestFramesIn_TrueRate(t *testing.T) {
 	}
 }
 
-// TestWindow_SaveAs_NameWithoutJSON_AsksBeforeReplacing: the save dialog
-// asks about overwriting the name as typed ("pan"), which it creates
-// empty; the window saves to pan.json, so an existing pan.json is replaced
-// only after its own question.
+// TestWindow_SaveAs_NameWithoutJSON_AsksBeforeReplacing: a name typed
+// without ".json" ("pan") saves to pan.json, so an existing pan.json is
+// replaced only after its own question, and nothing is written (or
+// emptied) before the answer.
 func TestWindow_SaveAs_NameWithoutJSON_AsksBeforeReplacing(t *testing.T) {
 	w := newTestWindow(t, "frying-pan")
 	dir := t.TempDir()
-	typed, target := filepath.Join(dir, "pan"), filepath.Join(dir, "pan.json")
+	target := filepath.Join(dir, "pan.json")
 	old := []byte(`{"format": "propflight/v1", "prop": {"parts": [{"shape": "sphere", "radius": 0.1, "mass": 1}]}}`)
 	if err := os.WriteFile(target, old, 0o644); err != nil {
 		t.Fatal(err)
 	}
-	os.WriteFile(typed, nil, 0o644) // what the dialog leaves under the typed name
 	ran := 0
-	w.savePicked(typed, func() { ran++ })
+	w.savePicked(dir, "pan", func() { ran++ })
 	d := w.lastDialog
 	if d == nil || d.title != "Replace pan.json?" || d.choose == nil {
 		t.Fatalf("no question before replacing pan.json: %+v", d)
 	}
 	if data, _ := os.ReadFile(target); !bytes.Equal(data, old) {
-		t.Fatal("pan.json replaced before the user answered")
-	}
-	if _, err := os.Stat(typed); err == nil {
-		t.Error("the empty file the dialog made is still there")
+		t.Fatal("pan.json replaced or emptied before the user answered")
 	}
 	d.choose["Cancel"]()
 	if data, _ := os.ReadFile(target); !bytes.Equal(data, old) || ran != 0 || w.ed.Path() != "" {
 		t.Fatalf("Cancel: file replaced %v, then ran %d, path %q", !bytes.Equal(data, old), ran, w.ed.Path())
 	}
-	w.savePicked(typed, func() { ran++ })
+	w.savePicked(dir, "pan", func() { ran++ })
 	w.lastDialog.choose["Replace"]()
 	saved, err := project.Load(target)
 	if err != nil || saved.Name != w.ed.Doc().Name || ran != 1 || w.ed.Path() != target {
@@ -746,8 +742,19 @@ func TestWindow_SaveAs_NameWithoutJSON_AsksBeforeReplacing(t *testing.T) {
 	}
 	// Saving to the project's own file needs no question.
 	w.lastDialog = nil
-	w.savePicked(typed, func() { ran++ })
+	w.savePicked(dir, "pan.json", func() { ran++ })
 	if w.lastDialog != nil || ran != 2 {
 		t.Errorf("save over the project's own file asked %+v (then ran %d)", w.lastDialog, ran)
+	}
+	// A name with a folder in it, or none, is refused with a message.
+	for _, bad := range []string{"", "  ", "sub/pan", ".json"} {
+		w.lastDialog = nil
+		w.savePicked(dir, bad, func() { ran++ })
+		if w.lastDialog == nil || !strings.Contains(w.lastDialog.message, "file name") || ran != 2 {
+			t.Errorf("name %q: dialog %+v", bad, w.lastDialog)
+		}
+	}
+	if entries, _ := os.ReadDir(dir); len(entries) != 1 {
+		t.Errorf("the folder holds %d entries, want only pan.json", len(entries))
 	}
 }
