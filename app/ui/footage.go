@@ -5,6 +5,7 @@ import (
 	"fmt"
 	"math"
 	"path/filepath"
+	"sync/atomic"
 
 	"fyne.io/fyne/v2"
 	"fyne.io/fyne/v2/container"
@@ -69,6 +70,32 @@ type footagePane struct {
 	fit       *footage.FitResult
 	fitErr    error
 	showFit   bool // the Fit button was pressed: the fit is shown and kept up to date
+
+	prefetching atomic.Bool // a goroutine is decoding the frames after the one shown
+}
+
+// prefetchAhead is how many frames after the one shown are decoded ahead
+// into the clip's cache, so that playing or stepping finds them ready
+// (the view decodes a frame it shows on the UI goroutine).
+const prefetchAhead = 4
+
+// prefetch decodes the frames after f on another goroutine, at most one
+// such goroutine at a time (a request while one runs is dropped: the next
+// frame shown asks again). Sequence.Frame is safe for concurrent use and
+// shares a decode already under way.
+func (p *footagePane) prefetch(f int) {
+	seq := p.seq
+	if seq == nil || p.w.synchronous || !p.prefetching.CompareAndSwap(false, true) {
+		return
+	}
+	go func() {
+		defer p.prefetching.Store(false)
+		for k := f + 1; k <= f+prefetchAhead && k < seq.Len(); k++ {
+			if k >= 0 {
+				seq.Frame(k) // errors show when the frame itself is shown
+			}
+		}
+	}()
 }
 
 // Choices of the footage frame-rate picker besides the rates.
@@ -426,6 +453,7 @@ func (p *footagePane) step(d int) {
 func (p *footagePane) showFootageFrame(f int) {
 	p.frame = f
 	p.view.SetFrame(f)
+	p.prefetch(f)
 	p.renderOverlay()
 	switch {
 	case p.seq == nil:
