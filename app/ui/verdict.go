@@ -23,9 +23,17 @@ type report struct {
 
 type row struct{ Label, Value string }
 
+// Imperial display factors, exact by definition (NIST SP 811, Appendix B):
+// 1 lb = 0.45359237 kg, 1 in = 0.0254 m.
+const (
+	kgPerLb = 0.45359237
+	mPerIn  = 0.0254
+)
+
 // verdictReport describes result res. Frames count from release (frame 0)
-// at the throw's rate; times are seconds, moments kg m^2, lengths m.
-func verdictReport(res editor.Result) report {
+// at the throw's rate; times are seconds; mass, centre of mass and moments
+// are in kg, m and kg m^2, or with imperial in lb, in and lb in^2.
+func verdictReport(res editor.Result, imperial bool) report {
 	var r report
 	if res.Err != nil {
 		r.Err = res.Err.Error()
@@ -44,11 +52,15 @@ func verdictReport(res editor.Result) report {
 		r.Rows = append(r.Rows, row{label, fmt.Sprintf(format, args...)})
 	}
 	add("motion", "%s", r.Motion)
-	add("mass", "%s kg", sig(mp.Mass))
-	add("centre of mass", "(%s, %s, %s) m", fixed(mp.CM.X), fixed(mp.CM.Y), fixed(mp.CM.Z))
+	massUnit, lenUnit, momUnit, mass, length := "kg", "m", "kg·m²", 1.0, 1.0
+	if imperial {
+		massUnit, lenUnit, momUnit, mass, length = "lb", "in", "lb·in²", 1/kgPerLb, 1/mPerIn
+	}
+	add("mass", "%s %s", sig(mp.Mass*mass), massUnit)
+	add("centre of mass", "(%s, %s, %s) %s", fixed(mp.CM.X*length), fixed(mp.CM.Y*length), fixed(mp.CM.Z*length), lenUnit)
 	for i, name := range axisNames {
 		a := mp.Axes[i]
-		add(name+" axis", "I%d = %s kg·m²  along (%s, %s, %s)", i+1, sig(mp.Moments[i]), dir2(a.X), dir2(a.Y), dir2(a.Z))
+		add(name+" axis", "I%d = %s %s  along (%s, %s, %s)", i+1, sig(mp.Moments[i]*mass*length*length), momUnit, dir2(a.X), dir2(a.Y), dir2(a.Z))
 	}
 	add("symmetry", "%s (%s)", v.Symmetry, ordering(v.Symmetry))
 	add("excursion", "%s° from the %s axis", sig(v.ExcursionDeg), v.Circles)

@@ -52,7 +52,7 @@ func TestVerdictReport_ThinDisc_TwoWobblesPerTurn(t *testing.T) {
 	if res.Err != nil {
 		t.Fatal(res.Err)
 	}
-	r := verdictReport(res)
+	r := verdictReport(res, false)
 	if r.Motion != "wobble" || !strings.Contains(r.Why, "oblate") || !strings.Contains(r.Why, "never tumbles") {
 		t.Fatalf("disc: %q / %q", r.Motion, r.Why)
 	}
@@ -77,7 +77,7 @@ func TestVerdictReport_Demo_TumbleWordsAndRows(t *testing.T) {
 		t.Fatal(err)
 	}
 	res := editor.Compute(doc, physics.DefaultThresholds())
-	r := verdictReport(res)
+	r := verdictReport(res, false)
 	want := "It tumbles: you spun it about its middle axis (I1 < I2 < I3), which is unstable — small errors grow and it flips end over end."
 	if !strings.HasPrefix(r.Why, want) {
 		t.Errorf("why = %q\nwant prefix %q", r.Why, want)
@@ -102,7 +102,7 @@ func TestVerdictReport_Demo_TumbleWordsAndRows(t *testing.T) {
 func TestVerdictReport_BadProject_OnlyError(t *testing.T) {
 	doc := thinDisc(3)
 	doc.Prop.Parts[0].Radius = ptrTo(-1.0)
-	r := verdictReport(editor.Compute(doc, physics.DefaultThresholds()))
+	r := verdictReport(editor.Compute(doc, physics.DefaultThresholds()), false)
 	if r.Motion != "" || !strings.Contains(r.Err, "prop.parts[0].radius") {
 		t.Errorf("bad radius: motion %q, err %q", r.Motion, r.Err)
 	}
@@ -111,7 +111,7 @@ func TestVerdictReport_BadProject_OnlyError(t *testing.T) {
 func TestExplain_NoSpin(t *testing.T) {
 	doc := thinDisc(0)
 	doc.Throw.Spin.TurnsPerSecond = ptrTo(0.0)
-	r := verdictReport(editor.Compute(doc, physics.DefaultThresholds()))
+	r := verdictReport(editor.Compute(doc, physics.DefaultThresholds()), false)
 	if r.Headline != "It does not turn." {
 		t.Errorf("no spin: %q", r.Headline)
 	}
@@ -164,8 +164,30 @@ func TestExplain_FreeAxisNearMiddle_SaysUnstable(t *testing.T) {
 	// The pan's middle axis is the prop's y (see its verdict rows); a free
 	// direction a few degrees off it tumbles like the named middle axis.
 	setFreeAxis(doc, project.Vec3{0.05, 1, 0})
-	r := verdictReport(editor.Compute(doc, physics.DefaultThresholds()))
+	r := verdictReport(editor.Compute(doc, physics.DefaultThresholds()), false)
 	if r.Motion != "tumble" || !strings.Contains(r.Why, "from its middle axis (I1 < I2 < I3), which is unstable") {
 		t.Errorf("free axis near the middle: %q / %q", r.Motion, r.Why)
+	}
+}
+
+// TestVerdictReport_Imperial: the imperial display gives the mass in lb,
+// the centre of mass in inches and the moments in lb in^2, by the exact
+// factors 1 lb = 0.45359237 kg and 1 in = 0.0254 m (NIST SP 811, App. B);
+// the handbook box of REFERENCES.md §1.2 (2 kg, greatest moment
+// 0.008333333333 kg m^2) is 4.409 lb and 28.48 lb in^2.
+func TestVerdictReport_Imperial(t *testing.T) {
+	doc, err := project.Parse("brick.json", []byte(`{"format": "propflight/v1", "prop": {"parts": [{"shape": "box", "size": [0.2, 0.1, 0.05], "mass": 2, "position": [0.0254, 0, 0]}]}}`))
+	if err != nil {
+		t.Fatal(err)
+	}
+	r := verdictReport(editor.Compute(doc, physics.DefaultThresholds()), true)
+	want := map[string]string{"mass": "4.409 lb", "centre of mass": "(1.000, 0.000, 0.000) in"}
+	for _, row := range r.Rows {
+		if w, ok := want[row.Label]; ok && row.Value != w {
+			t.Errorf("%s = %q, want %q", row.Label, row.Value, w)
+		}
+		if row.Label == "greatest axis" && !strings.HasPrefix(row.Value, "I3 = 28.48 lb·in²") {
+			t.Errorf("greatest axis = %q, want I3 = 28.48 lb·in²", row.Value)
+		}
 	}
 }

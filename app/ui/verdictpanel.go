@@ -74,7 +74,7 @@ func newVerdictPanel(w *Window) *verdictPanel {
 // refused; like the project's own error it is shown above the numbers,
 // which stay those of the last result that had them.
 func (v *verdictPanel) show(res editor.Result, editErr error) {
-	r := verdictReport(res)
+	r := verdictReport(res, v.w.imperial)
 	if editErr != nil {
 		r.Err = editErr.Error()
 	}

@@ -425,6 +425,7 @@ func (w *Window) setImperial(on bool) {
 	w.verdict.fields.setImperial(on)
 	w.view.fields.setImperial(on)
 	w.footage.fields.setImperial(on)
+	w.verdict.show(w.result, w.editErr) // the verdict's mass, centre and moments too
 }
 
 // newField makes a number field that follows the imperial toggle.
