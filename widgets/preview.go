@@ -273,7 +273,9 @@ func (p *Preview) render(w, h int) image.Image {
 	for i := range pal.Styles {
 		pal.Styles[i].Width *= scale
 	}
-	p.painter.Paint(p.img, wire.Draw(p.cam, p.scene), pal)
+	sc := p.scene
+	sc.LabelScale = int(math.Round(scale)) // label text grows with the canvas scale too
+	p.painter.Paint(p.img, wire.Draw(p.cam, sc), pal)
 	p.stale = false
 	return p.img
 }

@@ -80,6 +80,9 @@ type Drawing struct {
 	Width, Height int
 	Segments      []Segment
 	Labels        []Label
+	// LabelScale is the whole-number size of the label text: 1 is the
+	// 7x13 font as is, 2 doubles it for a HiDPI screen (Scene.LabelScale).
+	LabelScale int
 }
 
 // Scene is what Draw shows.
@@ -104,6 +107,10 @@ type Scene struct {
 	GroundY   float64 // height of the ground plane, m
 
 	Detail int // segments round a full circle of a round part; 0 means DefaultDetail
+	// LabelScale enlarges the label text by a whole factor (0 or 1: the
+	// 7x13 font; 2 for a screen of twice the pixel density); labels are
+	// kept apart at that size.
+	LabelScale int
 }
 
 // Screen sizes of the marks Draw makes, in pixels.
@@ -130,7 +137,8 @@ const (
 func Draw(cam Camera, sc Scene) Drawing {
 	lens := cam.Lens()
 	w, h := lens.Size()
-	d := &drawer{lens: lens, out: Drawing{Width: w, Height: h}}
+	ls := max(sc.LabelScale, 1)
+	d := &drawer{lens: lens, out: Drawing{Width: w, Height: h, LabelScale: ls}, ls: float64(ls)}
 	d.right, _, _ = cam.Axes()
 	d.xmax, d.ymax = float64(w)+clipPad, float64(h)+clipPad
 
@@ -138,7 +146,7 @@ func Draw(cam Camera, sc Scene) Drawing {
 	if mp == nil && sc.Prop != nil {
 		m, err := sc.Prop.MassProps()
 		if err != nil {
-			d.out.Labels = append(d.out.Labels, Label{At: [2]float64{8, 8 + LabelHeight}, Text: "prop: " + err.Error(), Kind: Note})
+			d.out.Labels = append(d.out.Labels, Label{At: [2]float64{8, 8 + LabelHeight*d.ls}, Text: "prop: " + err.Error(), Kind: Note})
 		} else {
 			mp = &m
 		}
@@ -331,6 +339,7 @@ type drawer struct {
 	// avoid is a screen disc (x, y, radius in pixels) that labels keep out
 	// of: the current prop.
 	avoid [3]float64
+	ls    float64 // label text scale (Scene.LabelScale, at least 1)
 }
 
 // prop draws the wireframe placed at centre of mass cm with rotation rot.

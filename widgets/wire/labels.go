@@ -41,9 +41,10 @@ func (d *drawer) clearOf(p, dir [2]float64, start float64) float64 {
 // Draw assumes when it keeps labels apart (the 7x13 font's advance).
 const LabelAdvance = 7.0
 
-// labelBox returns the screen rectangle x0, y0, x1, y1 a label covers.
-func labelBox(l Label) [4]float64 {
-	w := LabelAdvance * float64(len(l.Text))
+// labelBox returns the screen rectangle x0, y0, x1, y1 a label covers
+// with its text enlarged ls times.
+func labelBox(l Label, ls float64) [4]float64 {
+	w := LabelAdvance * ls * float64(len(l.Text))
 	x := l.At[0]
 	switch l.Align {
 	case AlignRight:
@@ -51,7 +52,7 @@ func labelBox(l Label) [4]float64 {
 	case AlignCentre:
 		x -= w / 2
 	}
-	return [4]float64{x - 1, l.At[1] - LabelHeight - 1, x + w + 1, l.At[1] + 3}
+	return [4]float64{x - 1, l.At[1] - LabelHeight*ls - 1, x + w + 1, l.At[1] + 3*ls}
 }
 
 // label adds a label. One that would overlap a label already placed is
@@ -61,16 +62,16 @@ func (d *drawer) label(at [2]float64, text string, k Kind, al Align) {
 	if !finite(at[0]) || !finite(at[1]) {
 		return
 	}
-	line := LabelHeight + 3
+	line := (LabelHeight + 3) * d.ls
 	for _, shift := range [5]float64{0, line, -line, 2 * line, -2 * line} {
 		l := Label{At: [2]float64{at[0], at[1] + shift}, Text: text, Kind: k, Align: al}
-		b := labelBox(l)
+		b := labelBox(l, d.ls)
 		if b[2] < 0 || b[3] < 0 || b[0] > d.xmax || b[1] > d.ymax {
 			continue // wholly outside the image
 		}
 		hit := false
 		for _, o := range d.out.Labels {
-			c := labelBox(o)
+			c := labelBox(o, d.ls)
 			if b[0] < c[2] && c[0] < b[2] && b[1] < c[3] && c[1] < b[3] {
 				hit = true
 				break
@@ -96,7 +97,7 @@ func (d *drawer) labelBeside(p, dir [2]float64, gap float64, text string, k Kind
 	}
 	// Below p the text hangs from its top; above, it stands on its baseline;
 	// level with p it is centred on the point.
-	at[1] += LabelHeight * (dir[1] + 1) / 2
+	at[1] += LabelHeight * d.ls * (dir[1] + 1) / 2
 	d.label(at, text, k, al)
 }
 

@@ -8,6 +8,7 @@ import (
 	"math"
 	"sync"
 
+	xdraw "golang.org/x/image/draw"
 	"golang.org/x/image/font"
 	"golang.org/x/image/font/basicfont"
 	"golang.org/x/image/math/fixed"
@@ -133,7 +134,7 @@ func (p *Painter) Paint(dst *image.RGBA, d Drawing, pal Palette) {
 	}
 	for _, l := range d.Labels {
 		if l.Kind >= 0 && l.Kind < NumKinds {
-			drawLabel(dst, l, pal.Styles[l.Kind].Color, pal.Background)
+			drawLabel(dst, l, pal.Styles[l.Kind].Color, pal.Background, d.LabelScale)
 		}
 	}
 }
@@ -336,10 +337,13 @@ func composite(dst *image.RGBA, r image.Rectangle, m *image.Alpha, c color.NRGBA
 // labelFace is the font of labels: 7 pixels a character, ascent 11.
 var labelFace = basicfont.Face7x13
 
-// drawLabel draws one label in colour c with a halo of colour halo.
-func drawLabel(dst *image.RGBA, l Label, c, halo color.NRGBA) {
+// drawLabel draws one label in colour c with a halo of colour halo, its
+// text enlarged scale times (whole pixels, nearest neighbour: a bitmap
+// font stays crisp).
+func drawLabel(dst *image.RGBA, l Label, c, halo color.NRGBA, scale int) {
+	scale = max(scale, 1)
 	x, y := l.At[0], l.At[1]
-	w := float64(font.MeasureString(labelFace, l.Text).Round())
+	w := float64(font.MeasureString(labelFace, l.Text).Round() * scale)
 	switch l.Align {
 	case AlignRight:
 		x -= w
@@ -351,12 +355,30 @@ func drawLabel(dst *image.RGBA, l Label, c, halo color.NRGBA) {
 	}
 	b := dst.Bounds()
 	ix, iy := b.Min.X+int(math.Round(x)), b.Min.Y+int(math.Round(y))
+	if scale == 1 {
+		textAt(dst, l.Text, ix, iy, c, halo)
+		return
+	}
+	// Draw at the font's own size into a small transparent image, then
+	// enlarge it onto dst.
+	m := labelFace.Metrics()
+	asc, desc := m.Ascent.Ceil(), m.Descent.Ceil()
+	tw := font.MeasureString(labelFace, l.Text).Ceil()
+	tmp := image.NewRGBA(image.Rect(0, 0, tw+2, asc+desc+2))
+	textAt(tmp, l.Text, 1, asc+1, c, halo)
+	r := image.Rect(ix-scale, iy-(asc+1)*scale, ix+(tw+1)*scale, iy+(desc+1)*scale)
+	xdraw.NearestNeighbor.Scale(dst, r, tmp, tmp.Bounds(), xdraw.Over, nil)
+}
+
+// textAt draws text with its baseline starting at (x, y) in colour c over
+// a one-pixel halo of colour halo.
+func textAt(dst draw.Image, text string, x, y int, c, halo color.NRGBA) {
 	dr := font.Drawer{Dst: dst, Src: image.NewUniform(halo), Face: labelFace}
 	for _, o := range [4][2]int{{-1, 0}, {1, 0}, {0, -1}, {0, 1}} {
-		dr.Dot = fixed.P(ix+o[0], iy+o[1])
-		dr.DrawString(l.Text)
+		dr.Dot = fixed.P(x+o[0], y+o[1])
+		dr.DrawString(text)
 	}
 	dr.Src = image.NewUniform(c)
-	dr.Dot = fixed.P(ix, iy)
-	dr.DrawString(l.Text)
+	dr.Dot = fixed.P(x, y)
+	dr.DrawString(text)
 }

@@ -254,3 +254,65 @@ func TestRasterize_Label(t *testing.T) {
 		}
 	}
 }
+
+// TestRasterize_LabelScale: at LabelScale 2 the text covers twice the width
+// and height it covers at 1 (nearest-neighbour enlargement of the 7x13
+// font), in the same colour, on the same side of At.
+func TestRasterize_LabelScale(t *testing.T) {
+	pal := wire.DefaultPalette()
+	c := pal.Styles[wire.AxisMiddle].Color
+	extent := func(scale int) (w, h, minX int) {
+		d := wire.Drawing{Width: 200, Height: 60, LabelScale: scale,
+			Labels: []wire.Label{{At: [2]float64{40, 40}, Text: "middle", Kind: wire.AxisMiddle}}}
+		img := wire.Rasterize(d, pal)
+		x0, x1, y0, y1 := 1000, -1, 1000, -1
+		for y := range 60 {
+			for x := range 200 {
+				if p := img.RGBAAt(x, y); p.R == c.R && p.G == c.G && p.B == c.B {
+					x0, x1, y0, y1 = min(x0, x), max(x1, x), min(y0, y), max(y1, y)
+				}
+			}
+		}
+		return x1 - x0 + 1, y1 - y0 + 1, x0
+	}
+	w1, h1, m1 := extent(1)
+	w2, h2, m2 := extent(2)
+	if w1 <= 0 || w2 != 2*w1 || h2 != 2*h1 {
+		t.Errorf("text %dx%d at scale 1, %dx%d at scale 2: want twice", w1, h1, w2, h2)
+	}
+	if m1 < 40 || m2 < 40 {
+		t.Errorf("left-aligned text starts at x %d / %d, left of At.x = 40", m1, m2)
+	}
+}
+
+// TestDraw_LabelScaleKeepsLabelsApart: at LabelScale 2 the labels Draw
+// places do not overlap when measured at the doubled size.
+func TestDraw_LabelScaleKeepsLabelsApart(t *testing.T) {
+	sc := panScene(t, 1.2, 3, 1.5, 10)
+	sc.LabelScale = 2
+	cam := wire.NewCamera(wire.Free, 640, 400)
+	cam.Frame(wire.Bounds(sc))
+	d := wire.Draw(cam, sc)
+	if d.LabelScale != 2 || len(d.Labels) == 0 {
+		t.Fatalf("scale %d, %d labels", d.LabelScale, len(d.Labels))
+	}
+	box := func(l wire.Label) [4]float64 {
+		w := wire.LabelAdvance * 2 * float64(len(l.Text))
+		x := l.At[0]
+		switch l.Align {
+		case wire.AlignRight:
+			x -= w
+		case wire.AlignCentre:
+			x -= w / 2
+		}
+		return [4]float64{x, l.At[1] - 2*wire.LabelHeight, x + w, l.At[1] + 4}
+	}
+	for i, a := range d.Labels {
+		for _, b := range d.Labels[i+1:] {
+			p, q := box(a), box(b)
+			if p[0] < q[2] && q[0] < p[2] && p[1] < q[3] && q[1] < p[3] {
+				t.Errorf("labels %q and %q overlap at scale 2", a.Text, b.Text)
+			}
+		}
+	}
+}
