@@ -123,28 +123,21 @@ func (e *Editor) RedoLabel() string {
 
 // Undo restores the state before the last edit; it reports whether there
 // was one.
-func (e *Editor) Undo() bool {
-	if len(e.undo) == 0 {
-		return false
-	}
-	s := e.undo[len(e.undo)-1]
-	e.undo = e.undo[:len(e.undo)-1]
-	cur, _ := project.Marshal(e.doc)
-	e.redo = append(e.redo, snapshot{label: s.label, data: cur})
-	e.doc = mustClone(s.data, e.doc.File)
-	e.open = ""
-	return true
-}
+func (e *Editor) Undo() bool { return e.travel(&e.undo, &e.redo) }
 
 // Redo takes back the last Undo.
-func (e *Editor) Redo() bool {
-	if len(e.redo) == 0 {
+func (e *Editor) Redo() bool { return e.travel(&e.redo, &e.undo) }
+
+// travel restores the newest state of from, recording the current state on
+// to under the same label, and reports whether from had one.
+func (e *Editor) travel(from, to *[]snapshot) bool {
+	if len(*from) == 0 {
 		return false
 	}
-	s := e.redo[len(e.redo)-1]
-	e.redo = e.redo[:len(e.redo)-1]
+	s := (*from)[len(*from)-1]
+	*from = (*from)[:len(*from)-1]
 	cur, _ := project.Marshal(e.doc)
-	e.undo = append(e.undo, snapshot{label: s.label, data: cur})
+	*to = append(*to, snapshot{label: s.label, data: cur})
 	e.doc = mustClone(s.data, e.doc.File)
 	e.open = ""
 	return true
