@@ -13,12 +13,28 @@ import (
 	"propflight/physics"
 )
 
-func runCheck(w io.Writer, cmd Command) error {
+func init() {
+	register(&Spec{
+		Name: "check", Order: 20,
+		Synopsis: "[FILE] [--json]", Summary: "mass properties, verdict and flight timing",
+		About: "Print a project's mass properties, its verdict (spin, tumble or wobble) with\n" +
+			"the numbers behind it, and the flight's timing. Without FILE or --preset,\n" +
+			"the demo.",
+		Operand: "FILE",
+		Flags: []*Flag{
+			{Name: "--json", Aliases: []string{"-json"}, Help: "print one JSON object (DESIGN.md keys) instead of the summary"},
+			presetFlag,
+		},
+		Run: runCheck,
+	})
+}
+
+func runCheck(w io.Writer, cmd *Command) error {
 	f, err := loadAndFly(cmd)
 	if err != nil {
 		return err
 	}
-	if cmd.JSON {
+	if cmd.Switch("--json") {
 		return writeCheckJSON(w, f)
 	}
 	writeSummary(w, f)

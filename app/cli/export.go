@@ -1,17 +1,25 @@
 package cli
 
 import (
-	"bytes"
 	"fmt"
 	"io"
+	"slices"
+	"strconv"
 	"strings"
 
 	"propflight/app/export"
 	"propflight/app/fsutil"
-	"propflight/app/sheet"
-	"propflight/physics"
 	"propflight/widgets/wire"
 )
+
+// outputFlag is -o of export and sheet.
+var outputFlag = &Flag{Name: "--output", Aliases: []string{"-o"}, Value: "OUT", Help: `where to write; "-" is standard output`}
+
+// twosFlag is --twos of export and sheet.
+var twosFlag = &Flag{Name: "--twos", Help: "every other frame, each pose held two frames (on twos)"}
+
+// Export formats: the values of --format.
+var formats = []string{"csv", "gltf", "png"}
 
 // Default PNG sequence size (720p, common practice for reference overlays).
 const (
@@ -19,30 +27,90 @@ const (
 	defaultPNGHeight = 720
 )
 
-// runExport writes the take in cmd.Format to cmd.Output ("-": out, which
+// pngFlags go with --format png only.
+var pngFlags = []*Flag{
+	{Name: "--width", Value: "W", Kind: Int, Default: strconv.Itoa(defaultPNGWidth), Help: "png: image width in pixels"},
+	{Name: "--height", Value: "H", Kind: Int, Default: strconv.Itoa(defaultPNGHeight), Help: "png: image height in pixels"},
+	{Name: "--view", Value: "VIEW", Choices: []string{"front", "side", "top", "free"}, Default: "front", Help: "png: camera (front looks along -z, side along -x)"},
+	{Name: "--onion", Value: "N", Kind: Int, Default: "0", Help: "png: onion-skin frames drawn before and after each frame"},
+	{Name: "--transparent", Help: "png: no background, for compositing"},
+}
+
+func init() {
+	register(&Spec{
+		Name: "export", Order: 30,
+		Synopsis: "FILE --format csv|gltf|png -o OUT",
+		Summary:  "write the take: CSV rows, glTF 2.0 or PNG frames",
+		About: "Write the take: CSV rows (one per frame, DESIGN.md columns), a glTF 2.0\n" +
+			"animation (.glb binary or .gltf JSON), or a folder of numbered PNG frames.\n" +
+			"Without --format the extension of OUT decides (.csv, .glb, .gltf).",
+		Operand: "FILE",
+		Flags: append([]*Flag{
+			presetFlag,
+			{Name: "--format", Value: "FORMAT", Choices: formats, Help: "what to write; without it the extension of OUT decides"},
+			outputFlag,
+			twosFlag,
+		}, pngFlags...),
+		Check: checkExport,
+		Run:   runExport,
+	})
+}
+
+// checkExport requires an output and a known format; without --format the
+// output's extension names it.
+func checkExport(cmd *Command) error {
+	out := cmd.Text("--output")
+	if out == "" {
+		return usagef("export: -o OUT is required (use -o - for standard output)")
+	}
+	if !cmd.Has("--format") {
+		ext := strings.ToLower(strings.TrimPrefix(extension(out), "."))
+		if ext == "glb" {
+			ext = "gltf"
+		}
+		if !slices.Contains(formats, ext) {
+			return usagef("export: --format is required (%s)", strings.Join(formats, ", "))
+		}
+		cmd.SetValue("--format", ext)
+	}
+	format := cmd.Text("--format")
+	if format != "png" && slices.ContainsFunc(pngFlags, func(f *Flag) bool { return cmd.Has(f.Name) }) {
+		return usagef("export: --width, --height, --view, --transparent and --onion go with --format png")
+	}
+	if cmd.Switch("--twos") && format == "gltf" {
+		return usagef("export: --twos goes with csv or png (glTF keys every frame so any package can re-time it)")
+	}
+	if format == "png" && out == "-" {
+		return usagef("export: a PNG sequence needs a folder: -o DIR")
+	}
+	return nil
+}
+
+// runExport writes the take in the chosen format to -o ("-": out, which
 // Run copies to standard output). Files are written atomically.
-func runExport(out io.Writer, cmd Command) error {
+func runExport(out io.Writer, cmd *Command) error {
 	f, err := loadAndFly(cmd)
 	if err != nil {
 		return err
 	}
 	in := export.Input{Name: f.scene.Name, Prop: &f.scene.Prop, Mass: &f.scene.Mass, Throw: &f.scene.Throw, Take: f.take}
-	switch cmd.Format {
+	dest := cmd.Text("--output")
+	switch cmd.Text("--format") {
 	case "png":
 		return runPNG(out, cmd, in)
 	case "gltf":
-		binary := !strings.EqualFold(extension(cmd.Output), ".gltf")
-		return writeOut(out, cmd.Output, func(w io.Writer) error {
+		binary := !strings.EqualFold(extension(dest), ".gltf")
+		return writeOut(out, dest, func(w io.Writer) error {
 			return export.WriteGLTF(w, in, export.GLTFOptions{Binary: binary})
 		}, fmt.Sprintf("%d frames of %s as glTF 2.0", f.take.LandingFrame+1, f.scene.Name))
 	}
 	write := export.WriteCSV
 	what := fmt.Sprintf("%d frames of %s", f.take.LandingFrame+1, f.scene.Name)
-	if cmd.Twos {
+	if cmd.Switch("--twos") {
 		write = export.WriteCSVTwos
 		what = fmt.Sprintf("%d rows of %s on twos", len(export.OnTwos(f.take)), f.scene.Name)
 	}
-	return writeOut(out, cmd.Output, func(w io.Writer) error { return write(w, f.take) }, what)
+	return writeOut(out, dest, func(w io.Writer) error { return write(w, f.take) }, what)
 }
 
 // writeOut writes with write to path atomically, or to out when path is
@@ -58,45 +126,22 @@ func writeOut(out io.Writer, path string, write func(io.Writer) error, what stri
 	return nil
 }
 
-func runPNG(out io.Writer, cmd Command, in export.Input) error {
-	opt := export.PNGOptions{Width: cmd.Width, Height: cmd.Height, View: wire.Front, Twos: cmd.Twos, Onion: cmd.Onion, Transparent: cmd.Transparent}
-	if opt.Width == 0 {
-		opt.Width = defaultPNGWidth
-	}
-	if opt.Height == 0 {
-		opt.Height = defaultPNGHeight
-	}
-	switch cmd.View {
-	case "side":
-		opt.View = wire.Side
-	case "top":
-		opt.View = wire.Top
-	case "free":
-		opt.View = wire.Free
+// views maps --view's values to cameras.
+var views = map[string]wire.View{"front": wire.Front, "side": wire.Side, "top": wire.Top, "free": wire.Free}
+
+func runPNG(out io.Writer, cmd *Command, in export.Input) error {
+	opt := export.PNGOptions{
+		Width: cmd.Int("--width"), Height: cmd.Int("--height"), View: views[cmd.Text("--view")],
+		Twos: cmd.Switch("--twos"), Onion: cmd.Int("--onion"), Transparent: cmd.Switch("--transparent"),
 	}
 	if err := opt.Validate(); err != nil {
 		return usagef("export: --%v", err)
 	}
-	files, err := export.WritePNGSequence(cmd.Output, in, opt, nil)
+	dir := cmd.Text("--output")
+	files, err := export.WritePNGSequence(dir, in, opt, nil)
 	if err != nil {
-		return fmt.Errorf("%s: %w", cmd.Output, err)
+		return fmt.Errorf("%s: %w", dir, err)
 	}
-	fmt.Fprintf(out, "wrote %d images of %s into %s (%dx%d, %s view)\n", len(files), in.Name, cmd.Output, opt.Width, opt.Height, opt.View)
+	fmt.Fprintf(out, "wrote %d images of %s into %s (%dx%d, %s view)\n", len(files), in.Name, dir, opt.Width, opt.Height, opt.View)
 	return nil
-}
-
-// runSheet writes the timing sheet PDF.
-func runSheet(out io.Writer, cmd Command) error {
-	f, err := loadAndFly(cmd)
-	if err != nil {
-		return err
-	}
-	thr := physics.DefaultThresholds()
-	in := sheet.Input{Name: f.scene.Name, Scene: f.scene, Verdict: f.verdict, Take: f.take, Thresholds: &thr}
-	var buf bytes.Buffer
-	if err := sheet.Write(&buf, in, sheet.Options{Paper: cmd.Paper, Twos: cmd.Twos}); err != nil {
-		return err
-	}
-	return writeOut(out, cmd.Output, func(w io.Writer) error { _, err := w.Write(buf.Bytes()); return err },
-		fmt.Sprintf("timing sheet of %s, %d frames", f.scene.Name, f.take.LandingFrame+1))
 }

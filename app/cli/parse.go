@@ -2,6 +2,8 @@ package cli
 
 import (
 	"fmt"
+	"maps"
+	"math"
 	"slices"
 	"strconv"
 	"strings"
@@ -9,23 +11,79 @@ import (
 
 // Command is a parsed command line.
 type Command struct {
-	// Name is the command: "check", "export", "sheet", "presets",
-	// "version" or "help"; empty when there were no arguments at all
-	// (open the window).
-	Name   string
-	File   string // project file; empty: the preset, or the demo
-	Preset string // --preset NAME: a built-in preset instead of File
-	JSON   bool   // --json (check)
-	Format string // --format (export): csv, gltf or png
-	Output string // -o, --output (export, sheet); "-" is standard output
-	Paper  string // --paper (sheet): a4 or letter
-	Twos   bool   // --twos (export csv/png, sheet): every other frame, each pose held two frames
+	// Name is the command ("check", "sheet", ..., "help", "version");
+	// empty when there were no arguments at all (open the window).
+	Name string
+	// File is the operand (a project file, a marks file); empty when
+	// none was given.
+	File string
+	// Topic is the command whose help page "help" shows ("propflight
+	// help sheet", "propflight sheet --help"); empty for the overview.
+	Topic string
 
-	// PNG sequence (export --format png).
-	Width, Height int    // --width, --height in pixels (default 1280 x 720)
-	View          string // --view: front, side, top or free (default side)
-	Transparent   bool   // --transparent: no background, for compositing
-	Onion         int    // --onion N: onion-skin frames before and after
+	spec *Spec
+	set  map[string]string // canonical flag name -> value ("" for a switch)
+}
+
+// Has reports whether the flag (canonical name, "--paper") was given.
+func (c *Command) Has(name string) bool {
+	_, ok := c.set[name]
+	return ok
+}
+
+// Switch reports whether the switch was given.
+func (c *Command) Switch(name string) bool { return c.Has(name) }
+
+// Text returns the flag's value, or its declared default when absent
+// (lowered when the flag has choices).
+func (c *Command) Text(name string) string {
+	if v, ok := c.set[name]; ok {
+		return v
+	}
+	if f := c.declared(name); f != nil {
+		return f.Default
+	}
+	return ""
+}
+
+// Int returns a whole-number flag's value or default (0 when neither);
+// Parse has checked the value.
+func (c *Command) Int(name string) int {
+	n, _ := strconv.Atoi(c.Text(name))
+	return n
+}
+
+// Float returns a number flag's value or default (NaN when neither);
+// Parse has checked the value.
+func (c *Command) Float(name string) float64 {
+	s := c.Text(name)
+	if s == "" {
+		return math.NaN()
+	}
+	v, _ := strconv.ParseFloat(s, 64)
+	return v
+}
+
+// SetValue records a value for a flag, as Check functions do for values
+// derived from others.
+func (c *Command) SetValue(name, value string) {
+	if c.set == nil {
+		c.set = map[string]string{}
+	}
+	c.set[name] = value
+}
+
+// Flags returns the given flags (canonical name -> value), for tests.
+func (c *Command) Flags() map[string]string { return maps.Clone(c.set) }
+
+// declared returns the command's own declaration of a flag, or nil. Asking
+// for a flag the command does not declare is a programming error caught by
+// the tests of that command.
+func (c *Command) declared(name string) *Flag {
+	if c.spec == nil {
+		return nil
+	}
+	return c.spec.flag(name)
 }
 
 // UsageError is a mistake in the command line (exit status 2).
@@ -37,75 +95,25 @@ func usagef(format string, args ...any) error {
 	return &UsageError{Msg: fmt.Sprintf(format, args...)}
 }
 
-// Commands lists the command names in the order the help shows them.
-var Commands = []string{"open", "check", "export", "sheet", "fit", "presets", "version", "help"}
-
-// Export formats and sheet papers.
-var (
-	Formats = []string{"csv", "gltf", "png"}
-	Papers  = []string{"a4", "letter"}
-)
-
-// flagSpec describes one flag: its canonical name, whether it takes a
-// value, and the commands it belongs to.
-type flagSpec struct {
-	name     string
-	value    bool
-	commands []string
-}
-
-var flagSpecs = []flagSpec{
-	{"--json", false, []string{"check"}},
-	{"--preset", true, []string{"check", "export", "sheet"}},
-	{"--format", true, []string{"export"}},
-	{"--output", true, []string{"export", "sheet"}},
-	{"--paper", true, []string{"sheet"}},
-	{"--twos", false, []string{"export", "sheet"}},
-	{"--width", true, []string{"export"}},
-	{"--height", true, []string{"export"}},
-	{"--view", true, []string{"export"}},
-	{"--transparent", false, []string{"export"}},
-	{"--onion", true, []string{"export"}},
-	{"--help", false, nil},
-	{"--version", false, nil},
-}
-
-// aliases maps other spellings to the canonical flag name.
-var aliases = map[string]string{"-o": "--output", "-h": "--help", "-json": "--json"}
-
-func lookupFlag(name string) (flagSpec, bool) {
-	if c, ok := aliases[name]; ok {
-		name = c
-	}
-	for _, f := range flagSpecs {
-		if f.name == name {
-			return f, true
-		}
-	}
-	return flagSpec{}, false
-}
-
-// display returns how a flag is shown in messages: "-o" for output.
-func display(name string) string {
-	if name == "--output" {
-		return "-o"
-	}
-	return name
+// given is one flag as it appeared on the command line.
+type given struct {
+	flag    *Flag
+	spelled string
+	value   string
 }
 
 // Parse reads the arguments after the program name. Flags may come before
-// or after FILE and the command; "--" ends the flags. Flag values follow
-// as the next argument or after "=" (-o OUT, -o=OUT, --output OUT,
-// --output=OUT). -h or --help anywhere asks for help, --version for the
-// version. Every mistake is a *UsageError.
+// or after the operand and the command; "--" ends the flags. Flag values
+// follow as the next argument or after "=" (-o OUT, -o=OUT, -oOUT,
+// --output OUT, --output=OUT). -h or --help asks for the command's help
+// page (the overview without a command), --version alone for the version.
+// Every mistake is a *UsageError.
 func Parse(args []string) (Command, error) {
-	var cmd Command
 	if len(args) == 0 {
-		return cmd, nil
+		return Command{}, nil
 	}
-	seen := map[string]string{} // canonical flag -> the spelling used
+	var flags []given
 	var positional []string
-	help, version := false, false
 	for i := 0; i < len(args); i++ {
 		a := args[i]
 		if a == "--" {
@@ -117,171 +125,156 @@ func Parse(args []string) (Command, error) {
 			continue
 		}
 		name, val, hasVal := strings.Cut(a, "=")
-		spec, ok := lookupFlag(name)
-		if !ok && strings.HasPrefix(a, "-o") && len(a) > 2 && !hasVal {
-			// -oOUT, the short form without a space.
-			spec, _ = lookupFlag("-o")
-			name, val, hasVal = "-o", a[2:], true
-			ok = true
+		f, _ := anyFlag(name)
+		if f == nil && strings.HasPrefix(a, "-") && !strings.HasPrefix(a, "--") && len(a) > 2 && !hasVal {
+			// -oOUT: a one-letter alias with its value attached.
+			if g, _ := anyFlag(a[:2]); g != nil && g.Value != "" {
+				f, name, val, hasVal = g, a[:2], a[2:], true
+			}
 		}
-		if !ok {
+		if f == nil {
 			return Command{}, usagef("unknown flag %s%s (see propflight --help)", quote(name), suggestFlag(name))
 		}
-		if prev, dup := seen[spec.name]; dup {
-			return Command{}, usagef("%s given twice (as %s and %s)", display(spec.name), quote(prev), quote(name))
-		}
-		seen[spec.name] = name
-		if spec.value {
+		if f.Value != "" {
 			if !hasVal {
 				if i+1 >= len(args) {
-					return Command{}, usagef("%s needs a value", display(spec.name))
+					return Command{}, usagef("%s needs a value", f.display())
 				}
 				i++
 				val = args[i]
 			}
 			if val == "" {
-				return Command{}, usagef("%s needs a value", display(spec.name))
+				return Command{}, usagef("%s needs a value", f.display())
 			}
 		} else if hasVal {
-			return Command{}, usagef("%s takes no value", display(spec.name))
+			return Command{}, usagef("%s takes no value", f.display())
 		}
-		switch spec.name {
-		case "--json":
-			cmd.JSON = true
-		case "--preset":
-			cmd.Preset = val
-		case "--format":
-			cmd.Format = strings.ToLower(val)
-		case "--output":
-			cmd.Output = val
-		case "--paper":
-			cmd.Paper = strings.ToLower(val)
-		case "--twos":
-			cmd.Twos = true
-		case "--width", "--height", "--onion":
-			n, err := strconv.Atoi(val)
-			if err != nil {
-				return Command{}, usagef("%s: %s is not a whole number", spec.name, quote(val))
-			}
-			switch spec.name {
-			case "--width":
-				cmd.Width = n
-			case "--height":
-				cmd.Height = n
-			default:
-				cmd.Onion = n
-			}
-		case "--view":
-			cmd.View = strings.ToLower(val)
-		case "--transparent":
-			cmd.Transparent = true
-		case "--help":
-			help = true
-		case "--version":
-			version = true
-		}
+		flags = append(flags, given{flag: f, spelled: name, value: val})
 	}
+	has := func(f *Flag) bool {
+		return slices.ContainsFunc(flags, func(g given) bool { return g.flag == f })
+	}
+	help, version := has(helpFlag), has(versionFlag)
 	switch {
-	case help:
-		return Command{Name: "help"}, nil
-	case version && len(positional) == 0:
+	case version && len(positional) == 0 && len(flags) == 1:
 		return Command{Name: "version"}, nil
+	case len(positional) == 0 && help:
+		return Command{Name: "help"}, nil
 	case len(positional) == 0:
-		return Command{}, usagef("no command given (commands: %s; see propflight --help)", strings.Join(Commands, ", "))
+		return Command{}, usagef("no command given (commands: %s; see propflight --help)", strings.Join(CommandNames(), ", "))
 	}
-	cmd.Name = positional[0]
-	files := positional[1:]
-	if !slices.Contains(Commands, cmd.Name) && strings.EqualFold(extension(cmd.Name), ".json") {
+	name, operands := positional[0], positional[1:]
+	spec := lookupCommand(name)
+	if spec == nil && strings.EqualFold(extension(name), ".json") {
 		// propflight FILE.json: open the window on that project.
-		cmd.Name, files = "open", positional
+		spec, operands = lookupCommand("open"), positional
 	}
-	if !slices.Contains(Commands, cmd.Name) {
-		return Command{}, usagef("unknown command %s (commands: %s; see propflight --help)", quote(cmd.Name), strings.Join(Commands, ", "))
+	if spec == nil {
+		if help {
+			return Command{Name: "help"}, nil
+		}
+		return Command{}, usagef("unknown command %s (commands: %s; see propflight --help)", quote(name), strings.Join(CommandNames(), ", "))
 	}
 	if version {
-		return Command{}, usagef("--version goes alone, not with %s", cmd.Name)
+		return Command{}, usagef("--version goes alone, not with %s", spec.Name)
 	}
-	if cmd.Name == "help" {
-		return Command{Name: "help"}, nil
+	if spec.Name == "help" {
+		return parseHelp(operands)
 	}
-	for _, spec := range flagSpecs {
-		spelled, used := seen[spec.name]
-		if used && !slices.Contains(spec.commands, cmd.Name) {
-			return Command{}, usagef("%s: %s does not apply here (it goes with %s)", cmd.Name, quote(spelled), strings.Join(spec.commands, " or "))
+	if help {
+		return Command{Name: "help", Topic: spec.Name}, nil
+	}
+	cmd := Command{Name: spec.Name, spec: spec}
+	for _, g := range flags {
+		own := spec.flag(g.spelled)
+		if own == nil {
+			_, with := anyFlag(g.spelled)
+			return Command{}, usagef("%s: %s does not apply here (it goes with %s)", spec.Name, quote(g.spelled), strings.Join(with, " or "))
 		}
+		if cmd.Has(own.Name) {
+			prev := ""
+			for _, h := range flags {
+				if h.flag.Name == own.Name {
+					prev = h.spelled
+					break
+				}
+			}
+			return Command{}, usagef("%s given twice (as %s and %s)", own.display(), quote(prev), quote(g.spelled))
+		}
+		v, err := own.check(g.value)
+		if err != nil {
+			return Command{}, usagef("%s: %v", spec.Name, err)
+		}
+		cmd.SetValue(own.Name, v)
 	}
-	takesFile := cmd.Name == "check" || cmd.Name == "export" || cmd.Name == "sheet" || cmd.Name == "open"
 	switch {
-	case len(files) > 0 && !takesFile:
-		return Command{}, usagef("%s takes no file (got %s)", cmd.Name, quote(files[0]))
-	case len(files) > 1:
-		return Command{}, usagef("%s: more than one FILE given (%s and %s)", cmd.Name, quote(files[0]), quote(files[1]))
-	case len(files) == 1:
-		cmd.File = files[0]
-	}
-	if cmd.File != "" && cmd.Preset != "" {
-		return Command{}, usagef("%s: give FILE or --preset, not both", cmd.Name)
+	case len(operands) > 0 && spec.Operand == "":
+		return Command{}, usagef("%s takes no file (got %s)", spec.Name, quote(operands[0]))
+	case len(operands) > 1:
+		return Command{}, usagef("%s: more than one %s given (%s and %s)", spec.Name, spec.Operand, quote(operands[0]), quote(operands[1]))
+	case len(operands) == 1:
+		cmd.File = operands[0]
 	}
 	if cmd.File == "-" {
-		return Command{}, usagef("%s: reading a project from standard input is not supported; give a file name", cmd.Name)
+		return Command{}, usagef("%s: reading %s from standard input is not supported; give a file name", spec.Name, spec.Operand)
 	}
-	switch cmd.Name {
-	case "open":
-		if cmd.File == "" {
-			return Command{}, usagef("open: give the project file to open")
+	if cmd.File != "" && cmd.Has(presetFlag.Name) {
+		return Command{}, usagef("%s: give FILE or --preset, not both", spec.Name)
+	}
+	if cmd.File == "" && spec.OperandRequired {
+		msg := spec.MissingOperand
+		if msg == "" {
+			msg = "give " + spec.Operand
 		}
-	case "export":
-		if err := checkExport(&cmd); err != nil {
+		return Command{}, usagef("%s: %s (usage: %s)", spec.Name, msg, spec.usageLine())
+	}
+	if spec.Check != nil {
+		if err := spec.Check(&cmd); err != nil {
 			return Command{}, err
-		}
-	case "sheet":
-		if cmd.Output == "" {
-			return Command{}, usagef("sheet: -o OUT.pdf is required")
-		}
-		if cmd.Paper != "" && !slices.Contains(Papers, cmd.Paper) {
-			return Command{}, usagef("sheet: unknown paper %s (use %s)", quote(cmd.Paper), strings.Join(Papers, " or "))
 		}
 	}
 	return cmd, nil
 }
 
-// checkExport requires an output and a known format; without --format the
-// output's extension names it.
-func checkExport(cmd *Command) error {
-	if cmd.Output == "" {
-		return usagef("export: -o OUT is required (use -o - for standard output)")
+// parseHelp reads "help [COMMAND]".
+func parseHelp(operands []string) (Command, error) {
+	switch {
+	case len(operands) == 0:
+		return Command{Name: "help"}, nil
+	case len(operands) > 1:
+		return Command{}, usagef("help: one command at a time (got %s and %s)", quote(operands[0]), quote(operands[1]))
 	}
-	if cmd.Format == "" {
-		ext := strings.ToLower(strings.TrimPrefix(extension(cmd.Output), "."))
-		if ext == "glb" {
-			ext = "gltf"
-		}
-		if !slices.Contains(Formats, ext) {
-			return usagef("export: --format is required (%s)", strings.Join(Formats, ", "))
-		}
-		cmd.Format = ext
+	if lookupCommand(operands[0]) == nil {
+		return Command{}, usagef("help: unknown command %s (commands: %s)", quote(operands[0]), strings.Join(CommandNames(), ", "))
 	}
-	if !slices.Contains(Formats, cmd.Format) {
-		return usagef("export: unknown format %s (use %s)", quote(cmd.Format), strings.Join(Formats, ", "))
-	}
-	pngOnly := cmd.Width != 0 || cmd.Height != 0 || cmd.View != "" || cmd.Transparent || cmd.Onion != 0
-	if pngOnly && cmd.Format != "png" {
-		return usagef("export: --width, --height, --view, --transparent and --onion go with --format png")
-	}
-	if cmd.Twos && cmd.Format == "gltf" {
-		return usagef("export: --twos goes with csv or png (glTF keys every frame so any package can re-time it)")
-	}
-	if cmd.Format == "png" && cmd.Output == "-" {
-		return usagef("export: a PNG sequence needs a folder: -o DIR")
-	}
-	if cmd.View != "" && !slices.Contains(Views, cmd.View) {
-		return usagef("export: --view: unknown view %s (use %s)", quote(cmd.View), strings.Join(Views, ", "))
-	}
-	return nil
+	return Command{Name: "help", Topic: operands[0]}, nil
 }
 
-// Views are the camera views of export --format png.
-var Views = []string{"front", "side", "top", "free"}
+// check validates a flag's value by its kind and choices and returns it as
+// the command keeps it (lowered when there are choices).
+func (f *Flag) check(v string) (string, error) {
+	if f.Value == "" {
+		return "", nil
+	}
+	switch f.Kind {
+	case Int:
+		if _, err := strconv.Atoi(v); err != nil {
+			return "", usagef("%s: %s is not a whole number", f.Name, quote(v))
+		}
+	case Number:
+		x, err := strconv.ParseFloat(v, 64)
+		if err != nil || math.IsNaN(x) || math.IsInf(x, 0) {
+			return "", usagef("%s: %s is not a number", f.Name, quote(v))
+		}
+	}
+	if len(f.Choices) > 0 {
+		v = strings.ToLower(v)
+		if !slices.Contains(f.Choices, v) {
+			return "", usagef("%s: unknown value %s (use %s)", f.Name, quote(v), strings.Join(f.Choices, ", "))
+		}
+	}
+	return v, nil
+}
 
 // extension returns the extension of the last path element of p.
 func extension(p string) string {
@@ -310,10 +303,19 @@ func quote(s string) string {
 // suggestFlag returns " (did you mean --x?)" for a near miss.
 func suggestFlag(name string) string {
 	bare := strings.TrimLeft(name, "-")
-	for _, f := range flagSpecs {
-		fb := strings.TrimPrefix(f.name, "--")
+	var names []string
+	for _, s := range registry {
+		for _, f := range s.Flags {
+			if !slices.Contains(names, f.Name) {
+				names = append(names, f.Name)
+			}
+		}
+	}
+	names = append(names, helpFlag.Name, versionFlag.Name)
+	for _, n := range names {
+		fb := strings.TrimPrefix(n, "--")
 		if bare == fb || (len(bare) >= 3 && strings.HasPrefix(fb, bare)) || swapped(bare, fb) {
-			return " (did you mean " + f.name + "?)"
+			return " (did you mean " + n + "?)"
 		}
 	}
 	return ""

@@ -6,46 +6,66 @@ import (
 	"testing"
 )
 
+// want is what a parsed command line must hold: the command (help's
+// topic after a slash, "help/check"), the operand and the given flags.
+type want struct {
+	name, file string
+	flags      map[string]string
+}
+
 func TestParse_Commands(t *testing.T) {
 	for _, c := range []struct {
 		args []string
-		want Command
+		want want
 	}{
-		{nil, Command{}},
-		{[]string{"check"}, Command{Name: "check"}},
-		{[]string{"check", "pan.json"}, Command{Name: "check", File: "pan.json"}},
-		{[]string{"check", "pan.json", "--json"}, Command{Name: "check", File: "pan.json", JSON: true}},
-		{[]string{"check", "--json", "pan.json"}, Command{Name: "check", File: "pan.json", JSON: true}},
-		{[]string{"--json", "check", "pan.json"}, Command{Name: "check", File: "pan.json", JSON: true}},
-		{[]string{"check", "--preset", "loaf"}, Command{Name: "check", Preset: "loaf"}},
-		{[]string{"check", "--preset=loaf", "--json"}, Command{Name: "check", Preset: "loaf", JSON: true}},
-		{[]string{"check", "--", "-odd.json"}, Command{Name: "check", File: "-odd.json"}},
-		{[]string{"export", "pan.json", "--format", "csv", "-o", "out.csv"}, Command{Name: "export", File: "pan.json", Format: "csv", Output: "out.csv"}},
-		{[]string{"export", "--format=CSV", "-o=out.txt", "pan.json"}, Command{Name: "export", File: "pan.json", Format: "csv", Output: "out.txt"}},
-		{[]string{"export", "pan.json", "--output", "-", "--format", "csv"}, Command{Name: "export", File: "pan.json", Format: "csv", Output: "-"}},
-		{[]string{"export", "pan.json", "--output=t.csv"}, Command{Name: "export", File: "pan.json", Format: "csv", Output: "t.csv"}},
-		{[]string{"export", "pan.json", "-o", "dir.v2/take.CSV"}, Command{Name: "export", File: "pan.json", Format: "csv", Output: "dir.v2/take.CSV"}},
-		{[]string{"export", "pan.json", "-oshot.glb"}, Command{Name: "export", File: "pan.json", Format: "gltf", Output: "shot.glb"}},
-		{[]string{"export", "--preset", "loaf", "-o", "f.png"}, Command{Name: "export", Preset: "loaf", Format: "png", Output: "f.png"}},
-		{[]string{"sheet", "pan.json", "-o", "s.pdf", "--paper", "Letter"}, Command{Name: "sheet", File: "pan.json", Output: "s.pdf", Paper: "letter"}},
-		{[]string{"pan.json"}, Command{Name: "open", File: "pan.json"}},
-		{[]string{"open", "pan.json"}, Command{Name: "open", File: "pan.json"}},
-		{[]string{"presets"}, Command{Name: "presets"}},
-		{[]string{"version"}, Command{Name: "version"}},
-		{[]string{"--version"}, Command{Name: "version"}},
-		{[]string{"help"}, Command{Name: "help"}},
-		{[]string{"-h"}, Command{Name: "help"}},
-		{[]string{"check", "--help"}, Command{Name: "help"}},
-		{[]string{"frobnicate", "-h"}, Command{Name: "help"}},
-		{[]string{"help", "check"}, Command{Name: "help"}},
+		{nil, want{"", "", map[string]string{}}},
+		{[]string{"check"}, want{"check", "", map[string]string{}}},
+		{[]string{"check", "pan.json"}, want{"check", "pan.json", map[string]string{}}},
+		{[]string{"check", "pan.json", "--json"}, want{"check", "pan.json", map[string]string{"--json": ""}}},
+		{[]string{"check", "--json", "pan.json"}, want{"check", "pan.json", map[string]string{"--json": ""}}},
+		{[]string{"--json", "check", "pan.json"}, want{"check", "pan.json", map[string]string{"--json": ""}}},
+		{[]string{"check", "--preset", "loaf"}, want{"check", "", map[string]string{"--preset": "loaf"}}},
+		{[]string{"check", "--preset=loaf", "--json"}, want{"check", "", map[string]string{"--preset": "loaf", "--json": ""}}},
+		{[]string{"check", "--", "-odd.json"}, want{"check", "-odd.json", map[string]string{}}},
+		{[]string{"export", "pan.json", "--format", "csv", "-o", "out.csv"}, want{"export", "pan.json", map[string]string{"--format": "csv", "--output": "out.csv"}}},
+		{[]string{"export", "--format=CSV", "-o=out.txt", "pan.json"}, want{"export", "pan.json", map[string]string{"--format": "csv", "--output": "out.txt"}}},
+		{[]string{"export", "pan.json", "--output", "-", "--format", "csv"}, want{"export", "pan.json", map[string]string{"--format": "csv", "--output": "-"}}},
+		{[]string{"export", "pan.json", "--output=t.csv"}, want{"export", "pan.json", map[string]string{"--format": "csv", "--output": "t.csv"}}},
+		{[]string{"export", "pan.json", "-o", "dir.v2/take.CSV"}, want{"export", "pan.json", map[string]string{"--format": "csv", "--output": "dir.v2/take.CSV"}}},
+		{[]string{"export", "pan.json", "-oshot.glb"}, want{"export", "pan.json", map[string]string{"--format": "gltf", "--output": "shot.glb"}}},
+		{[]string{"export", "--preset", "loaf", "-o", "f.png"}, want{"export", "", map[string]string{"--preset": "loaf", "--format": "png", "--output": "f.png"}}},
+		{[]string{"sheet", "pan.json", "-o", "s.pdf", "--paper", "Letter"}, want{"sheet", "pan.json", map[string]string{"--output": "s.pdf", "--paper": "letter"}}},
+		{[]string{"pan.json"}, want{"open", "pan.json", map[string]string{}}},
+		{[]string{"open", "pan.json"}, want{"open", "pan.json", map[string]string{}}},
+		{[]string{"presets"}, want{"presets", "", map[string]string{}}},
+		{[]string{"version"}, want{"version", "", map[string]string{}}},
+		{[]string{"--version"}, want{"version", "", map[string]string{}}},
+		{[]string{"help"}, want{"help", "", map[string]string{}}},
+		{[]string{"-h"}, want{"help", "", map[string]string{}}},
+		{[]string{"check", "--help"}, want{"help/check", "", map[string]string{}}},
+		{[]string{"frobnicate", "-h"}, want{"help", "", map[string]string{}}},
+		{[]string{"help", "check"}, want{"help/check", "", map[string]string{}}},
+		{[]string{"help", "--", "sheet"}, want{"help/sheet", "", map[string]string{}}},
+		{[]string{"fit", "--help"}, want{"help/fit", "", map[string]string{}}},
+		{[]string{"fit", "m.csv", "--fps=24000/1001", "--gravity", "9.8", "--json"}, want{"fit", "m.csv", map[string]string{"--fps": "24000/1001", "--gravity": "9.8", "--json": ""}}},
+		{[]string{"fit", "m.csv", "--gravity", "9.8", "--scale", "0.002"}, want{"fit", "m.csv", map[string]string{"--gravity": "9.8", "--scale": "0.002"}}},
+		{[]string{"export", "p.json", "-o", "d", "--format", "png", "--view", "Side", "--width=64"}, want{"export", "p.json", map[string]string{"--format": "png", "--output": "d", "--view": "side", "--width": "64"}}},
 	} {
 		got, err := Parse(c.args)
 		if err != nil {
 			t.Errorf("Parse(%q): %v", c.args, err)
 			continue
 		}
-		if !reflect.DeepEqual(got, c.want) {
-			t.Errorf("Parse(%q) = %+v, want %+v", c.args, got, c.want)
+		name := got.Name
+		if got.Topic != "" {
+			name += "/" + got.Topic
+		}
+		flags := got.Flags()
+		if flags == nil {
+			flags = map[string]string{}
+		}
+		if name != c.want.name || got.File != c.want.file || !reflect.DeepEqual(flags, c.want.flags) {
+			t.Errorf("Parse(%q) = %s %q %v, want %+v", c.args, name, got.File, flags, c.want)
 		}
 	}
 }
@@ -69,10 +89,10 @@ func TestParse_UsageErrors(t *testing.T) {
 		{[]string{"check", "--preset"}, "--preset needs a value"},
 		{[]string{"check", "a.json", "b.json"}, "check: more than one FILE given (a.json and b.json)"},
 		{[]string{"check", "a.json", "--preset", "loaf"}, "check: give FILE or --preset, not both"},
-		{[]string{"check", "-"}, "check: reading a project from standard input is not supported; give a file name"},
+		{[]string{"check", "-"}, "check: reading FILE from standard input is not supported; give a file name"},
 		{[]string{"check", "p.json", "--format", "csv"}, "check: --format does not apply here (it goes with export)"},
 		{[]string{"check", "p.json", "-o", "x"}, "check: -o does not apply here (it goes with export or sheet)"},
-		{[]string{"export", "p.json", "--json", "-o", "x.csv"}, "export: --json does not apply here (it goes with check)"},
+		{[]string{"export", "p.json", "--json", "-o", "x.csv"}, "export: --json does not apply here (it goes with check or fit)"},
 		{[]string{"presets", "--preset", "loaf"}, "presets: --preset does not apply here (it goes with check or export or sheet)"},
 		{[]string{"presets", "extra"}, "presets takes no file (got extra)"},
 		{[]string{"version", "x"}, "version takes no file (got x)"},
@@ -80,9 +100,23 @@ func TestParse_UsageErrors(t *testing.T) {
 		{[]string{"export", "p.json"}, "export: -o OUT is required (use -o - for standard output)"},
 		{[]string{"export", "p.json", "-o", "take"}, "export: --format is required (csv, gltf, png)"},
 		{[]string{"export", "p.json", "-o", "-"}, "export: --format is required (csv, gltf, png)"},
-		{[]string{"export", "p.json", "-o", "t.csv", "--format", "obj"}, "export: unknown format obj (use csv, gltf, png)"},
+		{[]string{"export", "p.json", "-o", "t.csv", "--format", "obj"}, "export: --format: unknown value obj (use csv, gltf, png)"},
 		{[]string{"sheet", "p.json"}, "sheet: -o OUT.pdf is required"},
-		{[]string{"sheet", "p.json", "-o", "s.pdf", "--paper", "a3"}, "sheet: unknown paper a3 (use a4 or letter)"},
+		{[]string{"sheet", "p.json", "-o", "s.pdf", "--paper", "a3"}, "sheet: --paper: unknown value a3 (use a4, letter)"},
+		{[]string{"help", "frobnicate"}, "help: unknown command frobnicate (commands: open, check, export, sheet, fit, presets, version, help)"},
+		{[]string{"help", "check", "sheet"}, "help: one command at a time (got check and sheet)"},
+		{[]string{"open"}, "open: give the project file to open (usage: propflight open FILE.json)"},
+		{[]string{"fit"}, "fit: the marks file is missing (usage: propflight fit MARKS.csv --fps N [--gravity G] [--scale M] [--json])"},
+		{[]string{"fit", "m.csv"}, "fit: --fps: required (the footage's frame rate), unless --gravity and --scale are both given to solve it"},
+		{[]string{"fit", "m.csv", "--fps", "fast"}, "fit: --fps: fast must be a number or a ratio such as 24000/1001"},
+		{[]string{"fit", "m.csv", "--fps", "24", "--gravity", "-9.8"}, "fit: --gravity: -9.8 must be positive (m/s^2)"},
+		{[]string{"fit", "m.csv", "--fps", "24", "--scale", "NaN"}, "fit: --scale: NaN is not a number"},
+		{[]string{"fit", "m.csv", "--fps"}, "--fps needs a value"},
+		{[]string{"fit", "m.csv", "--fps", "24", "--fast"}, "unknown flag --fast (see propflight --help)"},
+		{[]string{"fit", "m.csv", "n.csv", "--fps", "24"}, "fit: more than one MARKS.csv given (m.csv and n.csv)"},
+		{[]string{"fit", "m.csv", "--fps", "24", "-o", "x"}, "fit: -o does not apply here (it goes with export or sheet)"},
+		{[]string{"export", "p.json", "-o", "d", "--format", "png", "--width", "wide"}, "export: --width: wide is not a whole number"},
+		{[]string{"export", "p.json", "-o", "d", "--format", "png", "--view", "under"}, "export: --view: unknown value under (use front, side, top, free)"},
 		{[]string{"check", "--bad\nflag"}, `unknown flag "--bad\nflag" (see propflight --help)`},
 	} {
 		_, err := Parse(c.args)

@@ -42,10 +42,6 @@ func Run(args []string, stdout, stderr io.Writer, openWindow func(path string) e
 			code = ExitFailure
 		}
 	}()
-	if len(args) > 0 && args[0] == "fit" {
-		// The fit command has its own flags (see package app/footage).
-		return footage.RunFit(args[1:], stdout, stderr)
-	}
 	cmd, err := Parse(args)
 	if err != nil {
 		return fail(stderr, err)
@@ -57,28 +53,25 @@ func Run(args []string, stdout, stderr io.Writer, openWindow func(path string) e
 			}
 			return ExitOK
 		}
-		cmd = Command{Name: "check", File: cmd.File}
+		cmd, err = Parse(append([]string{"check", "--"}, nonEmpty(cmd.File)...))
+		if err != nil {
+			return fail(stderr, err)
+		}
 	}
 	// Commands write into a buffer first so that a failure half-way leaves
 	// stdout empty.
 	var out strings.Builder
-	switch cmd.Name {
-	case "help":
-		out.WriteString(usage)
-	case "version":
+	switch {
+	case cmd.Name == "help" && cmd.Topic == "":
+		out.WriteString(Overview())
+	case cmd.Name == "help":
+		out.WriteString(HelpPage(cmd.Topic))
+	case cmd.Name == "version":
 		fmt.Fprintf(&out, "propflight %s (%s %s/%s%s)\n", Version, runtime.Version(), runtime.GOOS, runtime.GOARCH, revision())
-	case "presets":
-		err = listPresets(&out)
-	case "check":
-		err = runCheck(&out, cmd)
-	case "export":
-		err = runExport(&out, cmd)
-	case "sheet":
-		err = runSheet(&out, cmd)
-	case "fit":
-		err = usagef("fit: give the marks file first: propflight fit MARKS.csv --fps N")
+	case cmd.spec != nil && cmd.spec.Run != nil:
+		err = cmd.spec.Run(&out, &cmd)
 	default:
-		err = fmt.Errorf("command %q has no handler", cmd.Name) // a bug in Parse
+		err = fmt.Errorf("command %q has no handler", cmd.Name) // a bug in its declaration
 	}
 	if err != nil {
 		return fail(stderr, err)
@@ -104,8 +97,9 @@ func exitCode(err error) int {
 		ue *UsageError
 		pe *project.Error
 		fe *physics.FieldError
+		me *footage.Error
 	)
-	if errors.As(err, &ue) || errors.As(err, &pe) || errors.As(err, &fe) || errors.Is(err, physics.ErrNoLanding) {
+	if errors.As(err, &ue) || errors.As(err, &pe) || errors.As(err, &fe) || errors.As(err, &me) || errors.Is(err, physics.ErrNoLanding) {
 		return ExitInput
 	}
 	return ExitFailure
@@ -137,7 +131,7 @@ type source struct {
 }
 
 // load reads the command's project: the file, the preset, or the demo.
-func load(cmd Command) (*source, error) {
+func load(cmd *Command) (*source, error) {
 	if cmd.File != "" {
 		doc, err := project.Load(cmd.File)
 		if err != nil {
@@ -145,7 +139,7 @@ func load(cmd Command) (*source, error) {
 		}
 		return &source{label: cmd.File, doc: doc}, nil
 	}
-	name := cmd.Preset
+	name := cmd.Text(presetFlag.Name)
 	if name == "" {
 		name = assets.Demo
 	}
@@ -170,7 +164,7 @@ type flight struct {
 }
 
 // loadAndFly loads the command's project and flies it.
-func loadAndFly(cmd Command) (*flight, error) {
+func loadAndFly(cmd *Command) (*flight, error) {
 	src, err := load(cmd)
 	if err != nil {
 		return nil, err
@@ -201,63 +195,10 @@ func fly(src *source) (*flight, error) {
 	return f, nil
 }
 
-func listPresets(w io.Writer) error {
-	names := assets.PresetNames()
-	width := 0
-	for _, n := range names {
-		width = max(width, len(n))
+// nonEmpty returns {s}, or nothing for "".
+func nonEmpty(s string) []string {
+	if s == "" {
+		return nil
 	}
-	for _, n := range names {
-		data, err := assets.Preset(n)
-		if err != nil {
-			return err
-		}
-		doc, err := project.Parse("preset "+n, data)
-		if err != nil {
-			return err
-		}
-		title := doc.Name
-		if n == assets.Demo {
-			title += " (the demo)"
-		}
-		fmt.Fprintf(w, "%-*s  %s\n", width, n, title)
-	}
-	return nil
+	return []string{s}
 }
-
-const usage = `propflight: plan a thrown prop - its mass properties, whether it will spin,
-tumble or wobble, and its flight frame by frame.
-
-Usage:
-  propflight                          open the window on the demo
-  propflight [open] FILE.json         open the window on a project
-  propflight check [FILE] [--json]    mass properties, verdict and flight timing
-  propflight export FILE --format csv|gltf|png -o OUT
-                                      write the take: CSV rows, a glTF 2.0
-                                      animation (.glb or .gltf), or a folder
-                                      of PNG frames
-  propflight sheet FILE -o OUT.pdf [--paper a4|letter] [--twos]
-                                      print the timing sheet
-  propflight fit MARKS.csv --fps N [--gravity G] [--scale M] [--json]
-                                      fit marks clicked on footage: gravity in
-                                      pixels, scale, release velocity, turn
-  propflight presets                  list the built-in demo props
-  propflight version                  print the version
-
-Options (before or after FILE):
-  --preset NAME      use a built-in preset instead of FILE (see propflight presets)
-  --json             check: print one JSON object instead of the summary
-  --format FORMAT    export: csv, gltf or png; without it the extension of
-                     OUT decides (.csv, .glb, .gltf)
-  -o, --output OUT   where to write; "-" is standard output
-  --twos             export csv/png, sheet: every other frame (on twos)
-  --width W, --height H, --view front|side|top|free, --onion N, --transparent
-                     export png: image size (default 1280 x 720), camera
-                     (default side), onion-skin frames, no background
-  --paper PAPER      sheet: a4 or letter
-  -h, --help         show this help
-
-FILE is a project file (format propflight/v1). Without FILE or --preset,
-check uses the demo. Exit status: 0 ok, 2 bad input or usage, 1 other failure.
-
-` + Safety + "\n"

@@ -313,9 +313,9 @@ func TestRun_ExitCodes(t *testing.T) {
 		{"png size", []string{"export", brick, "--format", "png", "--width", "5", "-o", filepath.Join(dir, "frames")}, 2, "width: must be 16 to 8192 pixels"},
 		{"png to stdout", []string{"export", brick, "--format", "png", "-o", "-"}, 2, "a PNG sequence needs a folder"},
 		{"png flag on csv", []string{"export", brick, "--format", "csv", "--view", "top", "-o", filepath.Join(dir, "x.csv")}, 2, "go with --format png"},
-		{"bad view", []string{"export", brick, "--format", "png", "--view", "under", "-o", filepath.Join(dir, "frames")}, 2, "unknown view"},
+		{"bad view", []string{"export", brick, "--format", "png", "--view", "under", "-o", filepath.Join(dir, "frames")}, 2, "--view: unknown value under"},
 		{"twos on gltf", []string{"export", brick, "--twos", "-o", filepath.Join(dir, "x.glb")}, 2, "--twos goes with csv or png"},
-		{"fit no marks", []string{"fit"}, 2, ""},
+		{"fit no marks", []string{"fit"}, 2, "the marks file is missing"},
 		{"export bad input", []string{"export", brickWith(t, `"mass": 2.0`, `"mass": 0`), "-o", filepath.Join(dir, "bad.csv")}, 2, "prop.parts[0].mass: must be positive"},
 		{"export no -o", []string{"export", brick}, 2, "export: -o OUT is required"},
 		{"export unwritable", []string{"export", brick, "--format", "csv", "-o", filepath.Join(dir, "no", "such", "t.csv")}, 1, "t.csv: cannot write:"},
@@ -409,7 +409,7 @@ func TestRun_StdoutFailure(t *testing.T) {
 
 func TestRun_HelpVersionPresets(t *testing.T) {
 	_, stdout, _ := run(t, "-h")
-	for _, want := range []string{"propflight check [FILE] [--json]", "propflight export FILE --format csv|gltf|png -o OUT", "propflight sheet FILE -o OUT.pdf", "propflight fit MARKS.csv", "--preset NAME", "Exit status: 0 ok, 2 bad input or usage, 1 other failure", Safety} {
+	for _, want := range []string{"propflight check [FILE] [--json]", "propflight export FILE --format csv|gltf|png -o OUT", "propflight sheet FILE -o OUT.pdf", "propflight fit MARKS.csv", "propflight help COMMAND", "Exit status: 0 ok, 2 bad input or usage, 1 other failure", Safety} {
 		if !strings.Contains(stdout, want) {
 			t.Errorf("help lacks %q", want)
 		}
