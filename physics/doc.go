@@ -1,5 +1,8 @@
 // Package physics is the pure maths of Propflight: parts -> mass properties ->
-// verdict, and throw -> take.
+// verdict, and throw -> take; the plan (PlanLanding: the spin rates that land
+// a prop axis along a world direction, with their windows) and the spread
+// (SpreadThrows: sampled release errors and the landings they give) are
+// searches over flights that keep only the end of each flight.
 //
 // Frames and units:
 //   - SI inside: metres, kilograms, seconds, radians. Degrees appear only at the
