@@ -56,14 +56,23 @@ type Verdict struct {
 	Omega0 r3.Vec     // angular velocity at release, principal frame, rad/s
 	Moment [3]float64 // principal moments used
 
-	// Symmetric bodies (Wobble): precession of the symmetry axis about L
-	// (L / I_perp, rad/s), the axial spin omega . axis (rad/s), their ratio
-	// (wobbles per turn) and the ratio to the Euler-angle spin (1 - r) omega3
-	// (REFERENCES.md §2.1). HasWobble is false otherwise.
+	// The spin-to-wobble ratio (DESIGN.md, verdict rules): the mean rate at
+	// which the circled axis goes round L (PrecessionRate, rad/s), the mean
+	// rate of turn about it (AxialRate, omega . axis, rad/s) and their ratio
+	// (WobblesPerTurn). For a symmetric body the rates are constant:
+	// L / I_perp and |omega . axis|; for an asymmetric one they are means
+	// over one polhode period (ratio.go). HasRatio is false for a tumble,
+	// for a symmetric body end over end (theta > 90 - WobbleMinDeg) and for
+	// no spin.
+	HasRatio       bool
+	PrecessionRate float64
+	AxialRate      float64
+	WobblesPerTurn float64
+
+	// Symmetric bodies that wobble: the ratio to the Euler-angle spin
+	// (1 - r) omega3 as well (REFERENCES.md §2.1). HasWobble is false
+	// otherwise.
 	HasWobble           bool
-	PrecessionRate      float64
-	AxialRate           float64
-	WobblesPerTurn      float64
 	WobblesPerEulerTurn float64
 
 	// Tumble: time between flips of the middle axis (half the polhode
@@ -89,10 +98,17 @@ const NearMiddleDeg = 30.0
 // Judge returns the verdict for throwing a body with mass properties mp by
 // th, under the thresholds thr.
 func Judge(mp *MassProps, th *Throw, thr Thresholds) Verdict {
-	I := mp.Moments
-	v := Verdict{Moment: I, Symmetry: SymmetryOf(I, thr.SymmetryTol)}
 	wp := th.Omega(mp)
 	w := r3.Vec{X: r3.Dot(wp, mp.Axes[0]), Y: r3.Dot(wp, mp.Axes[1]), Z: r3.Dot(wp, mp.Axes[2])}
+	return judgeOmega(mp.Moments, SymmetryOf(mp.Moments, thr.SymmetryTol), w, thr, true)
+}
+
+// judgeOmega judges the release angular velocity w (principal frame,
+// rad/s) of a body with principal moments I and symmetry sym. With full
+// false it leaves out the tumble's flip times and the onset (the axis map
+// needs only the class, excursion and ratio; the flip time integrates).
+func judgeOmega(I [3]float64, sym Symmetry, w r3.Vec, thr Thresholds, full bool) Verdict {
+	v := Verdict{Moment: I, Symmetry: sym}
 	v.Omega0 = w
 	l := r3.Vec{X: I[0] * w.X, Y: I[1] * w.Y, Z: I[2] * w.Z}
 	v.L = r3.Norm(l)
@@ -110,11 +126,17 @@ func Judge(mp *MassProps, th *Throw, thr Thresholds) Verdict {
 	v.D = r3.Norm2(lu) / r3.Dot(lu, r3.Scale(1/wn, w))
 	switch v.Symmetry {
 	case Spherical:
+		// Every axis is principal: the spin axis itself is the circled
+		// one, turning at |omega| about L with no precession to speak of.
+		// Ratio 1, the common limit of both near-axis formulas as the
+		// moments become equal (REFERENCES.md §10).
 		v.Motion = Spinning
+		v.HasRatio = true
+		v.PrecessionRate, v.AxialRate, v.WobblesPerTurn = wn, wn, 1
 	case Prolate, Oblate:
 		judgeSymmetric(&v, l, thr)
 	default:
-		judgeAsymmetric(&v, lu, wn, thr)
+		judgeAsymmetric(&v, lu, wn, thr, full)
 	}
 	return v
 }
@@ -129,15 +151,20 @@ func judgeSymmetric(v *Verdict, l r3.Vec, thr Thresholds) {
 	}
 	theta := math.Acos(math.Min(1, math.Abs(lAxis)/v.L)) * 180 / math.Pi
 	v.ExcursionDeg = theta
-	if theta < thr.WobbleMinDeg || theta > 90-thr.WobbleMinDeg {
+	if theta > 90-thr.WobbleMinDeg {
+		v.Motion = Spinning // end over end: no wobble ratio
+		return
+	}
+	v.HasRatio = true
+	v.PrecessionRate = v.L / iPerp
+	v.AxialRate = math.Abs(lAxis) / iAxis
+	v.WobblesPerTurn = v.PrecessionRate / v.AxialRate
+	if theta < thr.WobbleMinDeg {
 		v.Motion = Spinning
 		return
 	}
 	v.Motion = Wobbling
 	v.HasWobble = true
-	v.PrecessionRate = v.L / iPerp
-	v.AxialRate = math.Abs(lAxis) / iAxis
-	v.WobblesPerTurn = v.PrecessionRate / v.AxialRate
 	r := iAxis / iPerp
 	if r != 1 {
 		v.WobblesPerEulerTurn = v.PrecessionRate / (math.Abs(1-r) * v.AxialRate)
@@ -146,28 +173,16 @@ func judgeSymmetric(v *Verdict, l r3.Vec, thr Thresholds) {
 
 // judgeAsymmetric judges an asymmetric body from lu, the body angular
 // momentum per unit |omega| (I omega / |omega|), and the rate wn = |omega|.
-func judgeAsymmetric(v *Verdict, lu r3.Vec, wn float64, thr Thresholds) {
+func judgeAsymmetric(v *Verdict, lu r3.Vec, wn float64, thr Thresholds, full bool) {
 	I := v.Moment
 	D := v.D
-	var c2 float64
-	// Largest angle between L and the circled axis over the polhode: the
-	// point where the polhode crosses the plane of the middle axis (derived
-	// from |L|^2 and 2E = sum L_i^2 / I_i; see verdict_test.go).
-	if D < I[1] {
-		v.Circles = Least
-		c2 = I[0] * (I[1] - D) / (D * (I[1] - I[0]))
-	} else {
-		v.Circles = Greatest
-		c2 = I[2] * (D - I[1]) / (D * (I[2] - I[1]))
-	}
-	c2 = math.Max(0, math.Min(1, c2))
-	v.ExcursionDeg = math.Acos(math.Sqrt(c2)) * 180 / math.Pi
+	v.Circles, v.ExcursionDeg = asymmetricExcursion(I, D)
 
 	// Onset of a near-middle-axis spin, from the linearised growth rate
 	// lambda = Omega sqrt((I2-I1)(I3-I2)/(I1 I3)).
 	w := v.Omega0
 	off := math.Acos(math.Min(1, math.Abs(w.Y)/wn))
-	if off*180/math.Pi < NearMiddleDeg {
+	if full && off*180/math.Pi < NearMiddleDeg {
 		v.HasOnset = true
 		v.GrowthRate = math.Abs(w.Y) * math.Sqrt((I[1]-I[0])*(I[2]-I[1])/(I[0]*I[2]))
 		if off > 0 {
@@ -179,15 +194,41 @@ func judgeAsymmetric(v *Verdict, lu r3.Vec, wn float64, thr Thresholds) {
 
 	if v.ExcursionDeg < thr.TumbleDeg {
 		v.Motion = Spinning
+		if p, a, _, ok := asymmetricRatio(I, lu); ok {
+			v.HasRatio = true
+			v.PrecessionRate, v.AxialRate = p*wn, a*wn
+			v.WobblesPerTurn = p / a
+		}
 		return
 	}
 	v.Motion = Tumbling
+	if !full {
+		return
+	}
 	v.HasFlip = true
 	// The unit-rate motion, then times scaled by 1/|omega|.
 	half := PolhodePeriod(I, r3.Norm2(lu), r3.Dot(lu, r3.Vec{X: lu.X / I[0], Y: lu.Y / I[1], Z: lu.Z / I[2]})) / 2
 	v.FlipPeriod = half / wn
 	first, ok := firstFlip(I, lu, half)
 	v.FirstFlip, v.FirstFlipFound = first/wn, ok
+}
+
+// asymmetricExcursion returns the axis an asymmetric body (I ascending,
+// distinct) circles for D = L^2/(2E) (Least when D < I2) and the largest
+// angle between L and that axis over the motion, in degrees: the point
+// where the polhode crosses the plane of the middle axis, from |L|^2 and
+// 2E = sum L_i^2 / I_i (see verdict_test.go and ratio_test.go).
+func asymmetricExcursion(I [3]float64, D float64) (Axis, float64) {
+	var c2 float64
+	circles := Greatest
+	if D < I[1] {
+		circles = Least
+		c2 = I[0] * (I[1] - D) / (D * (I[1] - I[0]))
+	} else {
+		c2 = I[2] * (D - I[1]) / (D * (I[2] - I[1]))
+	}
+	c2 = math.Max(0, math.Min(1, c2))
+	return circles, math.Acos(math.Sqrt(c2)) * 180 / math.Pi
 }
 
 // PolhodePeriod returns the period T of the body-frame angular velocity of a

@@ -86,7 +86,7 @@ func newCheckJSON(f *flight) checkJSON {
 	for i, a := range mp.Axes {
 		j.PrincipalAxes[i] = arr(a)
 	}
-	if v.HasWobble {
+	if v.HasRatio {
 		x := v.WobblesPerTurn
 		j.WobblesPerTurn = &x
 	}
@@ -225,10 +225,13 @@ func writeSummary(w io.Writer, f *flight) {
 			sub("", "(a wobble from %g to %g deg)", thr.WobbleMinDeg, 90-thr.WobbleMinDeg)
 		}
 	}
-	if v.HasWobble {
-		sub("Wobble", "%s wobbles per turn of the axial spin (spin : wobble = 1 : %s)", num(v.WobblesPerTurn), num(v.WobblesPerTurn))
-		if v.WobblesPerEulerTurn > 0 {
+	if v.HasRatio {
+		sub("Wobble", "%s wobbles per turn about the %s axis (spin : wobble = 1 : %s)", num(v.WobblesPerTurn), axisWords[v.Circles], num(v.WobblesPerTurn))
+		if v.HasWobble && v.WobblesPerEulerTurn > 0 {
 			sub("", "against the Euler-angle spin, the turn relative to the wobble: 1 : %s", num(v.WobblesPerEulerTurn))
+		}
+		if v.Symmetry == physics.Asymmetric {
+			sub("", "(means over one polhode period of the %s axis going round the angular momentum)", axisWords[v.Circles])
 		}
 		period := 2 * math.Pi / v.PrecessionRate
 		sub("", "one wobble every %.3f s (%s frames)", period, num(period*rate.FPS()))

@@ -202,10 +202,12 @@ func TestRun_CheckJSON_EveryPreset(t *testing.T) {
 		if m["motion"] != v.Motion.String() || m["symmetry"] != v.Symmetry.String() {
 			t.Errorf("%s: motion %v symmetry %v, want %v %v", name, m["motion"], m["symmetry"], v.Motion, v.Symmetry)
 		}
-		if (m["wobbles_per_turn"] != nil) != (v.Motion == physics.Wobbling) {
+		// Null only for a tumble and a symmetric prop end over end (DESIGN.md verdict rules).
+		endOver := v.Symmetry != physics.Asymmetric && v.Symmetry != physics.Spherical && v.ExcursionDeg > 89.5
+		if (m["wobbles_per_turn"] != nil) != (v.Motion != physics.Tumbling && !endOver && v.L > 0) {
 			t.Errorf("%s: wobbles_per_turn %v for a %v", name, m["wobbles_per_turn"], v.Motion)
 		}
-		if v.HasWobble && m["wobbles_per_turn"] != v.WobblesPerTurn {
+		if v.HasRatio && m["wobbles_per_turn"] != v.WobblesPerTurn {
 			t.Errorf("%s: wobbles_per_turn %v, want %v", name, m["wobbles_per_turn"], v.WobblesPerTurn)
 		}
 		if (m["flip_period_s"] != nil) != (v.Motion == physics.Tumbling) {
@@ -265,7 +267,7 @@ func TestRun_CheckSummary_Demo(t *testing.T) {
 
 func TestRun_CheckSummary_WobbleAndSpin(t *testing.T) {
 	_, stdout, _ := run(t, "check", "--preset", "dinner-plate")
-	for _, want := range []string{"WOBBLE", "oblate", "wobbles per turn of the axial spin", "spin : wobble = 1 : ", "Euler-angle spin", "one wobble every", "25 fps"} {
+	for _, want := range []string{"WOBBLE", "oblate", "wobbles per turn about the greatest axis", "spin : wobble = 1 : ", "Euler-angle spin", "one wobble every", "25 fps"} {
 		if !strings.Contains(stdout, want) {
 			t.Errorf("dinner plate summary lacks %q:\n%s", want, stdout)
 		}

@@ -277,6 +277,9 @@ func TestWrite_VerdictOnPageOne(t *testing.T) {
 			if v.HasWobble {
 				want = append(want, fmt.Sprintf("%.3g wobbles per turn", v.WobblesPerTurn))
 			}
+			if v.HasRatio {
+				want = append(want, fmt.Sprintf("wobbles per turn %.3g", v.WobblesPerTurn), "one wobble every")
+			}
 			if v.HasFlip {
 				want = append(want, fmt.Sprintf("flip period %.3g s", v.FlipPeriod),
 					fmt.Sprintf("frame %d", int(math.Ceil(v.FirstFlip*in.Scene.Throw.FPS.FPS()-1e-9))))

@@ -90,10 +90,17 @@ func (s *sheet) verdictItems() []item {
 		{"circles", axisName(v.Circles)},
 		{"excursion", fixed(v.ExcursionDeg, 1) + "°"},
 	}
-	if v.HasWobble {
+	switch {
+	case v.HasWobble:
 		items = append(items, item{"wobbles per turn", sig(v.WobblesPerTurn, 3) + " (" + sig(v.WobblesPerEulerTurn, 3) + " per Euler-angle turn)"})
-	} else {
-		items = append(items, item{"wobbles per turn", "— (a wobble only)"})
+	case v.HasRatio:
+		items = append(items, item{"wobbles per turn", sig(v.WobblesPerTurn, 3) + " about the " + axisName(v.Circles)})
+	default:
+		items = append(items, item{"wobbles per turn", "— (none for a tumble or end over end)"})
+	}
+	if v.HasRatio && v.PrecessionRate > 0 {
+		period := 2 * math.Pi / v.PrecessionRate
+		items = append(items, item{"one wobble every", sig(period*s.fps(), 3) + " frames (" + sig(period, 3) + " s)"})
 	}
 	switch {
 	case !v.HasFlip:

@@ -64,9 +64,11 @@ func verdictReport(res editor.Result, imperial bool) report {
 	}
 	add("symmetry", "%s (%s)", v.Symmetry, ordering(v.Symmetry))
 	add("excursion", "%s° from the %s axis", sig(v.ExcursionDeg), v.Circles)
-	if v.HasWobble {
-		add("spin : wobble", "1 : %s (against the spin you see)", sig3(v.WobblesPerTurn))
-		if v.WobblesPerEulerTurn > 0 {
+	if v.HasRatio {
+		add("spin : wobble", "1 : %s (against the turn about the %s axis)", sig3(v.WobblesPerTurn), v.Circles)
+		period := 2 * math.Pi / v.PrecessionRate
+		add("wobble", "one every %s frames (%s s)", sig3(period*rate.FPS()), sig3(period))
+		if v.HasWobble && v.WobblesPerEulerTurn > 0 {
 			add("Euler spin : wobble", "1 : %s (against the Euler-angle spin)", sig3(v.WobblesPerEulerTurn))
 		}
 	}
