@@ -11,7 +11,8 @@
 //     is the plane y = Throw.GroundY.
 //   - Prop frame: the frame the parts are authored in. A Part's Position is its
 //     own centre of mass in the prop frame and its Orient turns the part's own
-//     axes into the prop frame.
+//     axes into the prop frame; a mesh part's Position and Orient place its
+//     file's origin and axes instead (Part.Center gives its centre of mass).
 //   - Principal frame: the prop's principal axes at its centre of mass, sorted
 //     so that I1 <= I2 <= I3 (least, middle, greatest axis).
 //   - Orientation quaternions (gonum quat.Number, fields Real, Imag, Jmag, Kmag

@@ -6,9 +6,11 @@ import (
 
 	"gonum.org/v1/gonum/num/quat"
 	"gonum.org/v1/gonum/spatial/r3"
+
+	"propflight/physics/mesh"
 )
 
-// Shape names one of the eight solid primitives a part can be.
+// Shape names one of the eight solid primitives a part can be, or a mesh.
 type Shape int
 
 // The part shapes. Axisymmetric shapes have their axis along the part's z.
@@ -21,9 +23,10 @@ const (
 	Ellipsoid              // SemiAxes a, b, c along x, y, z; solid
 	Cone                   // Radius (base), Height; solid, apex toward +z
 	Torus                  // Radius (centre line), TubeRadius; solid
+	MeshShape              // Mesh: a closed triangle mesh; solid, or a thin wall of Wall metres
 )
 
-var shapeNames = [...]string{"box", "cylinder", "tube", "sphere", "shell", "ellipsoid", "cone", "torus"}
+var shapeNames = [...]string{"box", "cylinder", "tube", "sphere", "shell", "ellipsoid", "cone", "torus", "mesh"}
 
 // String returns the shape's name as written in project files.
 func (s Shape) String() string {
@@ -43,8 +46,10 @@ func ParseShape(s string) (Shape, bool) {
 	return 0, false
 }
 
-// ShapeNames returns the names of all shapes in their declaration order.
-func ShapeNames() []string { return append([]string(nil), shapeNames[:]...) }
+// ShapeNames returns the names of the primitive shapes (every shape but
+// mesh, which needs a file rather than dimensions) in their declaration
+// order.
+func ShapeNames() []string { return append([]string(nil), shapeNames[:MeshShape]...) }
 
 // Part is one primitive of a prop. Lengths are in metres, mass in kg and
 // density in kg/m^3. Exactly one of Mass and Density is positive.
@@ -53,6 +58,14 @@ func ShapeNames() []string { return append([]string(nil), shapeNames[:]...) }
 // cone that is on the axis, a quarter of the height above the base). Position
 // places that centre in the prop frame and Orient turns the part's axes into
 // the prop frame.
+//
+// A mesh part is different: its Mesh keeps the file's own coordinates, and
+// Position and Orient move and turn the file's origin (a mesh vertex p is at
+// Position + Orient p in the prop frame). Center gives its centre of mass in
+// the prop frame; LocalInertia and LocalSupport are about that centre, in
+// the file's axes. With Wall > 0 the mass lies in a thin wall of that
+// thickness over the surface (thin-wall approximation: the surface moments,
+// and Density times area times Wall for the mass).
 type Part struct {
 	Name  string
 	Shape Shape
@@ -64,6 +77,9 @@ type Part struct {
 	Height      float64 // cone
 	TubeRadius  float64 // torus
 	SemiAxes    r3.Vec  // ellipsoid
+
+	Mesh *mesh.Mesh // mesh: closed, outward wound, metres, the file's frame
+	Wall float64    // mesh: wall thickness, m; 0 = solid
 
 	Mass    float64
 	Density float64
@@ -132,6 +148,13 @@ func (p *Part) Validate() error {
 		if !finitePos(p.TubeRadius) || p.TubeRadius > p.Radius {
 			return fieldErr("tube_radius", "must be positive and at most radius (%g)", p.Radius)
 		}
+	case MeshShape:
+		if p.Mesh == nil || len(p.Mesh.T) == 0 {
+			return fieldErr("file", "no mesh was read")
+		}
+		if p.Wall != 0 && !finitePos(p.Wall) {
+			return fieldErr("wall_m", "must be positive (or left out for a solid part)")
+		}
 	default:
 		return fieldErr("shape", "unknown shape %d", int(p.Shape))
 	}
@@ -161,9 +184,18 @@ func (p *Part) Validate() error {
 	return nil
 }
 
-// Volume returns the part's material volume in m^3 (0 for a thin shell).
+// Volume returns the part's material volume in m^3 (0 for a thin shell; a
+// hollow mesh's surface area times its wall).
 func (p *Part) Volume() float64 {
 	switch p.Shape {
+	case MeshShape:
+		if p.Mesh == nil {
+			return 0
+		}
+		if p.Wall > 0 {
+			return p.Mesh.Surface().Measure * p.Wall
+		}
+		return p.Mesh.Solid().Measure
 	case Box:
 		return p.Size.X * p.Size.Y * p.Size.Z
 	case Cylinder:
@@ -225,8 +257,47 @@ func (p *Part) LocalInertia() Mat3 {
 		R2, a2 := p.Radius*p.Radius, p.TubeRadius*p.TubeRadius
 		t := m * (R2/2 + 5*a2/8)
 		return Diag(t, t, m*(R2+3*a2/4))
+	case MeshShape:
+		// The mesh's unit-density moments scaled to the mass (REFERENCES.md §9).
+		mm, ok := p.meshMoments()
+		if !ok {
+			return Mat3{}
+		}
+		return Mat3(mm.Inertia).Scale(m / mm.Measure)
 	}
 	return Mat3{}
+}
+
+// meshMoments returns the moments a mesh part's mass follows: the surface's
+// for a thin wall, else the solid's. ok is false without a mesh.
+func (p *Part) meshMoments() (mesh.Moments, bool) {
+	if p.Mesh == nil || len(p.Mesh.T) == 0 {
+		return mesh.Moments{}, false
+	}
+	if p.Wall > 0 {
+		return p.Mesh.Surface(), true
+	}
+	return p.Mesh.Solid(), true
+}
+
+// localCenter is the centre of mass in the part's authored frame: the
+// mesh's centroid (of the surface for a thin wall), zero for primitives.
+func (p *Part) localCenter() r3.Vec {
+	if p.Shape != MeshShape {
+		return r3.Vec{}
+	}
+	mm, _ := p.meshMoments()
+	return mm.Center
+}
+
+// Center returns the part's centre of mass in the prop frame, m: Position
+// for a primitive; for a mesh, Position plus the mesh's centroid turned by
+// Orient.
+func (p *Part) Center() r3.Vec {
+	if p.Shape != MeshShape {
+		return p.Position
+	}
+	return r3.Add(p.Position, Rotate(Normalize(p.Orient), p.localCenter()))
 }
 
 // LocalSupport returns max over the part's points p (own frame) of p . u, the
@@ -251,6 +322,13 @@ func (p *Part) LocalSupport(u r3.Vec) float64 {
 		return math.Max(apex, base)
 	case Torus:
 		return p.Radius*math.Hypot(u.X, u.Y) + p.TubeRadius*r3.Norm(u)
+	case MeshShape:
+		// The largest p.u over the vertices (the mesh's exact support),
+		// measured from the centre of mass.
+		if p.Mesh == nil || len(p.Mesh.T) == 0 {
+			return 0
+		}
+		return p.Mesh.Support(u) - r3.Dot(p.localCenter(), u)
 	}
 	return 0
 }
@@ -271,6 +349,11 @@ func (p *Part) Reach() float64 {
 		return math.Max(3*p.Height/4, math.Hypot(p.Radius, p.Height/4))
 	case Torus:
 		return p.Radius + p.TubeRadius
+	case MeshShape:
+		if p.Mesh == nil {
+			return 0
+		}
+		return p.Mesh.Reach(p.localCenter())
 	}
 	return 0
 }

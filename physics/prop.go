@@ -83,13 +83,13 @@ func (p *Prop) MassProps() (MassProps, error) {
 		pt := &p.Parts[i]
 		m := pt.TotalMass()
 		mp.Mass += m
-		first = r3.Add(first, r3.Scale(m, pt.Position))
+		first = r3.Add(first, r3.Scale(m, pt.Center()))
 	}
 	mp.CM = r3.Scale(1/mp.Mass, first)
 	for i := range p.Parts {
 		pt := &p.Parts[i]
 		local := pt.LocalInertia().Rotated(Mat(Normalize(pt.Orient)))
-		mp.Inertia = mp.Inertia.Add(local.Shifted(pt.TotalMass(), r3.Sub(pt.Position, mp.CM)))
+		mp.Inertia = mp.Inertia.Add(local.Shifted(pt.TotalMass(), r3.Sub(pt.Center(), mp.CM)))
 	}
 	// Symmetrise away round-off before the eigen-decomposition.
 	for i := range 3 {

@@ -66,7 +66,7 @@ func newFlight(p *Prop, mp *MassProps, th *Throw) *flight {
 	f := &flight{th: th, rot: newRotor(mp.Moments), qp: FromMat(mp.PrincipalMat())}
 	for i := range p.Parts {
 		pt := &p.Parts[i]
-		fp := flightPart{part: pt, offset: r3.Sub(pt.Position, mp.CM), orient: Normalize(pt.Orient)}
+		fp := flightPart{part: pt, offset: r3.Sub(pt.Center(), mp.CM), orient: Normalize(pt.Orient)}
 		f.parts = append(f.parts, fp)
 		f.reach = math.Max(f.reach, r3.Norm(fp.offset)+pt.Reach())
 	}

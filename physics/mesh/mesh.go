@@ -26,6 +26,11 @@ type Mesh struct {
 	solidOnce, surfOnce, supOnce sync.Once
 	solid, surf                  Moments
 	sup                          *supportTree
+
+	reachMu sync.Mutex
+	reachAt r3.Vec
+	reach   float64
+	reachOK bool
 }
 
 // MaxTriangles is the most triangles New accepts (the int32 indices and a

@@ -21,12 +21,20 @@ func (m *Mesh) Support(u r3.Vec) float64 {
 	return m.sup.support(u)
 }
 
-// Reach returns the largest distance of a vertex from c, m.
+// Reach returns the largest distance of a vertex from c, m. The last
+// answer is kept, so asking again about the same c (every take of a part
+// asks about its centre of mass) costs nothing.
 func (m *Mesh) Reach(c r3.Vec) float64 {
+	m.reachMu.Lock()
+	defer m.reachMu.Unlock()
+	if m.reachOK && m.reachAt == c {
+		return m.reach
+	}
 	r := 0.0
 	for _, p := range m.V {
 		r = math.Max(r, r3.Norm(r3.Sub(p, c)))
 	}
+	m.reach, m.reachAt, m.reachOK = r, c, true
 	return r
 }
 
