@@ -177,7 +177,7 @@ const label = "%-16s"
 func writeSummary(w io.Writer, f *flight) {
 	sc, v, take := f.scene, &f.verdict, f.take
 	mp, th, rate := &sc.Mass, &sc.Throw, sc.Throw.FPS
-	thr := physics.DefaultThresholds()
+	thr := sc.Thresholds
 	p := func(format string, args ...any) { fmt.Fprintf(w, format+"\n", args...) }
 	row := func(name, format string, args ...any) { p(label+format, append([]any{name}, args...)...) }
 	sub := func(name, format string, args ...any) { p("  %-14s"+format, append([]any{name}, args...)...) }

@@ -172,7 +172,7 @@ func loadAndFly(cmd *Command) (*flight, error) {
 	return fly(src)
 }
 
-// fly builds the scene, judges it under the default thresholds and
+// fly builds the scene, judges it under the project's verdict rules and
 // simulates the take. Simulation problems name the file.
 func fly(src *source) (*flight, error) {
 	sc, err := src.doc.Build()
@@ -180,7 +180,7 @@ func fly(src *source) (*flight, error) {
 		return nil, err
 	}
 	f := &flight{src: src, scene: sc}
-	f.verdict = physics.Judge(&sc.Mass, &sc.Throw, physics.DefaultThresholds())
+	f.verdict = physics.Judge(&sc.Mass, &sc.Throw, sc.Thresholds)
 	f.take, err = physics.Simulate(&sc.Prop, &sc.Mass, &sc.Throw)
 	if err != nil {
 		var fe *physics.FieldError

@@ -182,7 +182,7 @@ func judged(t *testing.T, data []byte) (*project.Scene, physics.Verdict, *physic
 	if err != nil {
 		t.Fatal(err)
 	}
-	v := physics.Judge(&sc.Mass, &sc.Throw, physics.DefaultThresholds())
+	v := physics.Judge(&sc.Mass, &sc.Throw, sc.Thresholds)
 	take, err := physics.Simulate(&sc.Prop, &sc.Mass, &sc.Throw)
 	if err != nil {
 		t.Fatal(err)
@@ -507,5 +507,29 @@ func TestRun_ExportFormats(t *testing.T) {
 	csv := must("export", brick, "--format", "csv", "--twos", "-o", "-")
 	if rows := strings.Count(csv, "\n") - 1; rows != (frames+1)/2 {
 		t.Errorf("csv on twos: %d rows for %d frames", rows, frames)
+	}
+}
+
+// TestRun_VerdictRules: the project's verdict_rules judge it in check (text
+// and JSON) and the sheet. The brick spun 2 degrees off its middle axis
+// tumbles under the default 45-degree rule; its excursion is at most 90
+// degrees (the angle between L and an axis), so from 95 degrees nothing
+// tumbles and check calls it a spin.
+func TestRun_VerdictRules(t *testing.T) {
+	path := brickWith(t, `"throw": {`, `"verdict_rules": {"tumble_from_deg": 95}, "throw": {`)
+	code, stdout, stderr := run(t, "check", path, "--json")
+	if code != 0 {
+		t.Fatalf("exit %d: %s", code, stderr)
+	}
+	if m := decodeCheck(t, stdout); m["motion"] != "spin" || m["flip_period_s"] != nil {
+		t.Errorf("tumble_from_deg 95: motion %v, flip_period_s %v, want spin and null", m["motion"], m["flip_period_s"])
+	}
+	_, stdout, _ = run(t, "check", path)
+	if !strings.Contains(stdout, "SPIN") || strings.Contains(stdout, "TUMBLE") {
+		t.Errorf("summary under tumble_from_deg 95:\n%s", stdout)
+	}
+	_, stdout, _ = run(t, "check", brick, "--json")
+	if m := decodeCheck(t, stdout); m["motion"] != "tumble" {
+		t.Errorf("without rules: motion %v, want tumble", m["motion"])
 	}
 }

@@ -6,7 +6,6 @@ import (
 	"io"
 
 	"propflight/app/sheet"
-	"propflight/physics"
 )
 
 func init() {
@@ -39,8 +38,7 @@ func runSheet(out io.Writer, cmd *Command) error {
 	if err != nil {
 		return err
 	}
-	thr := physics.DefaultThresholds()
-	in := sheet.Input{Name: f.scene.Name, Scene: f.scene, Verdict: f.verdict, Take: f.take, Thresholds: &thr}
+	in := sheet.Input{Name: f.scene.Name, Scene: f.scene, Verdict: f.verdict, Take: f.take}
 	var buf bytes.Buffer
 	if err := sheet.Write(&buf, in, sheet.Options{Paper: cmd.Text("--paper"), Twos: cmd.Switch("--twos")}); err != nil {
 		return err

@@ -19,6 +19,9 @@ type Scene struct {
 	Prop  physics.Prop
 	Throw physics.Throw
 	Mass  physics.MassProps
+	// Thresholds are the verdict rules to judge it by: the project's
+	// "verdict_rules" over the defaults (Document.Thresholds).
+	Thresholds physics.Thresholds
 }
 
 // Default values of the optional fields (DESIGN.md "Contracts").
@@ -56,7 +59,7 @@ const (
 //     to "least" ("middle" when the axis is the least axis).
 func (d *Document) Build() (*Scene, error) {
 	b := builder{file: d.File}
-	sc := &Scene{Name: d.sceneName()}
+	sc := &Scene{Name: d.sceneName(), Thresholds: d.Thresholds()}
 	var err error
 	if sc.Prop, err = b.prop(&d.Prop); err != nil {
 		return nil, err

@@ -19,10 +19,13 @@ type Document struct {
 	// the path given to Load. It is not part of the file and is not saved.
 	File string
 
-	Name    string   // "name"; may be empty
-	Prop    Prop     // "prop" (required)
-	Throw   Throw    // "throw"; every field optional
-	Footage *Footage // "footage"; nil when the file has none
+	Name  string // "name"; may be empty
+	Prop  Prop   // "prop" (required)
+	Throw Throw  // "throw"; every field optional
+	// VerdictRules is "verdict_rules"; nil keeps the default thresholds
+	// (see Thresholds).
+	VerdictRules *VerdictRules
+	Footage      *Footage // "footage"; nil when the file has none
 }
 
 // Prop is the "prop" object: the parts in the prop frame.

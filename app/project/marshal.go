@@ -38,6 +38,7 @@ func Marshal(d *Document) ([]byte, error) {
 		e.key("throw")
 		e.throw(&d.Throw)
 	}
+	e.verdictRules(d.VerdictRules)
 	if d.Footage != nil {
 		e.footage(d.Footage)
 	}

@@ -216,7 +216,7 @@ func quoteShort(s string) string {
 }
 
 var (
-	documentKeys = []string{"format", "name", "prop", "throw", "footage"}
+	documentKeys = []string{"format", "name", "prop", "throw", "verdict_rules", "footage"}
 	propKeys     = []string{"parts"}
 	partKeys     = []string{"name", "shape", "size", "radius", "inner_radius", "length", "height", "tube_radius", "semi_axes", "mass", "density", "position", "rotation_deg"}
 	throwKeys    = []string{"fps", "gravity", "release_position", "release_velocity", "hang_time_s", "hang_frames", "distance", "heading_deg", "orientation_deg", "ground_y", "spin"}
@@ -265,6 +265,11 @@ func (p *parser) document(root *value) (*Document, error) {
 	}
 	if tv, ok := m["throw"]; ok {
 		if doc.Throw, err = p.throw(tv); err != nil {
+			return nil, err
+		}
+	}
+	if rv, ok := m["verdict_rules"]; ok {
+		if doc.VerdictRules, err = p.verdictRules(rv); err != nil {
 			return nil, err
 		}
 	}

@@ -64,7 +64,8 @@ type Input struct {
 	Verdict physics.Verdict
 	Take    *physics.Take
 	// Thresholds the verdict was judged under, printed beside it; nil
-	// means physics.DefaultThresholds().
+	// means the scene's (the project's verdict_rules), or
+	// physics.DefaultThresholds() for a scene made without Build.
 	Thresholds *physics.Thresholds
 }
 
@@ -139,6 +140,9 @@ func newSheet(in Input, opt Options) (*sheet, error) {
 		return nil, fmt.Errorf("pose view: must be front, side, top or free, not %v", opt.PoseView)
 	}
 	s := &sheet{in: in, opt: opt, sc: in.Scene, tk: in.Take, v: in.Verdict, thr: physics.DefaultThresholds()}
+	if in.Scene != nil && in.Scene.Thresholds != (physics.Thresholds{}) {
+		s.thr = in.Scene.Thresholds
+	}
 	if in.Thresholds != nil {
 		s.thr = *in.Thresholds
 	}

@@ -8,6 +8,8 @@ import (
 	"fyne.io/fyne/v2/widget"
 
 	"propflight/app/editor"
+	"propflight/app/project"
+	"propflight/physics"
 	"propflight/widgets"
 )
 
@@ -41,18 +43,20 @@ func newVerdictPanel(w *Window) *verdictPanel {
 	v.rows = container.New(layout.NewFormLayout())
 
 	fs := &v.fields
-	thresholdChanged := func(float64, bool) {
-		w.thr.SymmetryTol = v.symTol.Value() / 100
-		w.thr.TumbleDeg = v.tumble.Value()
-		w.thr.WobbleMinDeg = v.wobble.Value()
-		w.recompute()
+	// The thresholds are the project's "verdict_rules": an edit like any
+	// other (saved, undoable), so the window and every command judge the
+	// project alike.
+	thresholdChanged := func(_ float64, final bool) {
+		thr := physics.Thresholds{SymmetryTol: v.symTol.Value() / 100, TumbleDeg: v.tumble.Value(), WobbleMinDeg: v.wobble.Value()}
+		w.edit("Verdict rules", "verdict_rules", final, func(d *project.Document) error {
+			d.SetThresholds(thr)
+			return nil
+		})
 	}
 	v.symTol = w.newField(fs, "symmetric within %", widgets.Plain, 0.1, 10, thresholdChanged)
 	v.tumble = w.newField(fs, "tumble from", widgets.Angle, 1, 89, thresholdChanged)
 	v.wobble = w.newField(fs, "wobble from", widgets.Angle, 0.01, 10, thresholdChanged)
-	v.symTol.SetValue(w.thr.SymmetryTol * 100)
-	v.tumble.SetValue(w.thr.TumbleDeg)
-	v.wobble.SetValue(w.thr.WobbleMinDeg)
+	v.sync(w.ed.Doc())
 	v.fields.alignLabels()
 
 	v.content = container.NewVBox(
@@ -68,6 +72,14 @@ func newVerdictPanel(w *Window) *verdictPanel {
 		v.symTol, v.tumble, v.wobble,
 	)
 	return v
+}
+
+// sync sets the three threshold fields from the document's verdict rules.
+func (v *verdictPanel) sync(d *project.Document) {
+	thr := d.Thresholds()
+	setValue(v.symTol, thr.SymmetryTol*100)
+	setValue(v.tumble, thr.TumbleDeg)
+	setValue(v.wobble, thr.WobbleMinDeg)
 }
 
 // show puts result res on the panel. editErr is an edit the editor

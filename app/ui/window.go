@@ -27,7 +27,6 @@ type Window struct {
 	comp   computer
 	recent *editor.Recent
 
-	thr      physics.Thresholds
 	imperial bool
 	syncing  int  // > 0 while controls are set from the document: their callbacks do nothing
 	closed   bool // the window is gone; late results are dropped
@@ -165,7 +164,7 @@ func newWindowWith(a fyne.App, doc *project.Document, path string, opt windowOpt
 	if err != nil {
 		return nil, err
 	}
-	w := &Window{app: a, ed: ed, thr: physics.DefaultThresholds()}
+	w := &Window{app: a, ed: ed}
 	w.play.loop = true
 	w.synchronous = opt.synchronous
 	w.do = opt.do
@@ -286,13 +285,15 @@ func (w *Window) syncControls() {
 	w.props.sync(doc)
 	w.throw.sync(doc)
 	w.footage.sync(doc)
+	w.verdict.sync(doc)
 	w.syncing--
 	w.changed()
 }
 
 // recompute asks the worker for the current document's result.
 func (w *Window) recompute() {
-	w.requested = w.comp.Request(w.ed.Doc(), w.thr)
+	doc := w.ed.Doc()
+	w.requested = w.comp.Request(doc, doc.Thresholds())
 }
 
 // apply shows a result: the verdict panel always, the preview and the

@@ -544,8 +544,14 @@ func TestWindow_Thresholds_ChangeVerdict(t *testing.T) {
 	// The spin about the greatest axis swings a few degrees; a 1 degree
 	// tumble threshold calls that a tumble.
 	typeInto(t, w.verdict.tumble, "1")
-	if w.verdict.report.Motion != "tumble" || w.thr.TumbleDeg != 1 {
-		t.Errorf("tumble from 1°: motion %q, threshold %g", w.verdict.report.Motion, w.thr.TumbleDeg)
+	if r := w.ed.Doc().VerdictRules; w.verdict.report.Motion != "tumble" || r == nil || r.TumbleFromDeg == nil || *r.TumbleFromDeg != 1 {
+		t.Errorf("tumble from 1°: motion %q, rules %+v", w.verdict.report.Motion, r)
+	}
+	// The rule is an edit of the project: undo takes it back.
+	w.ed.Undo()
+	w.syncControls()
+	if w.verdict.report.Motion != "spin" || w.ed.Doc().VerdictRules != nil || w.verdict.tumble.Value() != 45 {
+		t.Errorf("after undo: motion %q, rules %+v, field %g", w.verdict.report.Motion, w.ed.Doc().VerdictRules, w.verdict.tumble.Value())
 	}
 }
 
