@@ -5,8 +5,15 @@
 // searches over flights that keep only the end of each flight.
 //
 // Frames and units:
-//   - SI inside: metres, kilograms, seconds, radians. Degrees appear only at the
-//     edges (project files, the screen), never in this package's API.
+//   - SI inside: metres, kilograms, seconds, radians. Every angle the package
+//     computes with is in radians. The one exception is a small set of
+//     reporting values that the edges (project files, the CLI's JSON and CSV,
+//     the screen) read and write in degrees as they are: the verdict's
+//     excursion (Verdict.ExcursionDeg), its thresholds (Thresholds.TumbleDeg,
+//     Thresholds.WobbleMinDeg, NearMiddleDeg) and the turn made in a frame
+//     (Frame.TurnDeg). Such a value always carries the suffix Deg in its name;
+//     an angle without that suffix is in radians. No function takes an angle
+//     in degrees.
 //   - World: right-handed, +Y up, metres (the glTF 2.0 convention). The ground
 //     is the plane y = Throw.GroundY.
 //   - Prop frame: the frame the parts are authored in. A Part's Position is its

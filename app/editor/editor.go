@@ -24,6 +24,7 @@ type snapshot struct {
 // UI goroutine owns it.
 type Editor struct {
 	doc   *project.Document
+	cur   []byte // Marshal(doc), kept with doc: Doc copies from it
 	path  string // "" until saved or opened
 	clean []byte // bytes of the clean state: as opened, started or last saved
 	undo  []snapshot
@@ -39,17 +40,15 @@ func New(doc *project.Document, path string) (*Editor, error) {
 	if err != nil {
 		return nil, err
 	}
-	return &Editor{doc: mustClone(data, doc.File), path: path, clean: data}, nil
+	return &Editor{doc: mustClone(data, doc.File), cur: data, path: path, clean: data}, nil
 }
 
 // Doc returns a copy of the current document, safe to keep or hand to
-// another goroutine.
+// another goroutine. The copy is parsed from the bytes the current state
+// was marshalled to when it was made (every state is marshalled before it
+// is accepted), so it never shares memory with the live document.
 func (e *Editor) Doc() *project.Document {
-	data, err := project.Marshal(e.doc)
-	if err != nil {
-		return e.doc
-	}
-	return mustClone(data, e.doc.File)
+	return mustClone(e.cur, e.doc.File)
 }
 
 // Path returns the file the project was last opened from or saved to.
@@ -61,8 +60,7 @@ func (e *Editor) Path() string { return e.path }
 // never saved is clean until it is edited, so closing an untouched demo
 // or new project loses nothing and needs no question.
 func (e *Editor) Dirty() bool {
-	data, err := project.Marshal(e.doc)
-	return err != nil || !bytes.Equal(data, e.clean)
+	return !bytes.Equal(e.cur, e.clean)
 }
 
 // Apply changes the document with edit, recording the previous state for
@@ -71,10 +69,7 @@ func (e *Editor) Dirty() bool {
 // call EndMerge when the gesture ends. If edit returns an error the
 // document is left as it was.
 func (e *Editor) Apply(label, key string, edit func(d *project.Document) error) error {
-	before, err := project.Marshal(e.doc)
-	if err != nil {
-		return err
-	}
+	before := e.cur
 	work := mustClone(before, e.doc.File)
 	if err := edit(work); err != nil {
 		return err
@@ -94,7 +89,7 @@ func (e *Editor) Apply(label, key string, edit func(d *project.Document) error) 
 	}
 	e.open = key
 	e.redo = nil
-	e.doc = work
+	e.doc, e.cur = work, after
 	return nil
 }
 
@@ -136,9 +131,8 @@ func (e *Editor) travel(from, to *[]snapshot) bool {
 	}
 	s := (*from)[len(*from)-1]
 	*from = (*from)[:len(*from)-1]
-	cur, _ := project.Marshal(e.doc)
-	*to = append(*to, snapshot{label: s.label, data: cur})
-	e.doc = mustClone(s.data, e.doc.File)
+	*to = append(*to, snapshot{label: s.label, data: e.cur})
+	e.doc, e.cur = mustClone(s.data, e.doc.File), s.data
 	e.open = ""
 	return true
 }
@@ -171,7 +165,7 @@ func (e *Editor) Save(path string) error {
 		return err // cannot happen: Save marshalled the same document
 	}
 	e.rebaseHistory(rebase)
-	e.doc, e.clean, e.path = doc, data, path
+	e.doc, e.cur, e.clean, e.path = doc, data, data, path
 	return nil
 }
 

@@ -1,6 +1,7 @@
 package editor
 
 import (
+	"math"
 	"os"
 	"path/filepath"
 	"strings"
@@ -314,5 +315,23 @@ func TestRecent(t *testing.T) {
 	os.WriteFile(path, []byte("{not json"), 0o644)
 	if r := LoadRecent(path); len(r.Files) != 0 {
 		t.Errorf("corrupt list gave %v", r.Files)
+	}
+}
+
+func TestEditor_Doc_NeverTheLiveDocument(t *testing.T) {
+	// Even when the live document cannot be marshalled (a NaN set behind
+	// the editor's back), Doc must hand out a copy, never the document the
+	// UI goroutine keeps editing.
+	e, err := New(demoDoc(t), "")
+	if err != nil {
+		t.Fatal(err)
+	}
+	nan := math.NaN()
+	e.doc.Throw.Gravity = &nan
+	if _, err := project.Marshal(e.doc); err == nil {
+		t.Fatal("a NaN gravity marshals; the test needs a document Marshal refuses")
+	}
+	if d := e.Doc(); d == e.doc {
+		t.Fatal("Doc returned the live document")
 	}
 }

@@ -10,14 +10,20 @@ import (
 // project-file path of the field ("prop.parts[1].size", "throw.fps"),
 // empty when the problem is with the file as a whole or at a text
 // position, and Line and Column the 1-based position of a JSON syntax
-// error (0 otherwise; Column counts characters, not bytes).
+// error (0 otherwise; Column counts characters, not bytes). Err, when
+// not nil, is the underlying cause (fs.ErrNotExist for a missing file),
+// reachable through errors.Is and errors.As; it is not printed.
 type Error struct {
 	File   string
 	Field  string
 	Line   int
 	Column int
 	Msg    string
+	Err    error
 }
+
+// Unwrap returns the underlying cause, or nil.
+func (e *Error) Unwrap() error { return e.Err }
 
 // Error returns "FILE: FIELD: MSG", "FILE: line L, column C: MSG" or
 // "FILE: MSG"; the "FILE: " part is left out when File is empty.

@@ -3,6 +3,8 @@ package project
 import (
 	"errors"
 	"fmt"
+	"io/fs"
+	"path/filepath"
 	"strings"
 	"testing"
 )
@@ -316,5 +318,16 @@ func TestError_Format(t *testing.T) {
 		if got := c.e.Error(); got != c.want {
 			t.Errorf("got %q, want %q", got, c.want)
 		}
+	}
+}
+
+func TestLoad_MissingFileKeepsErrNotExist(t *testing.T) {
+	_, err := Load(filepath.Join(t.TempDir(), "nothing.json"))
+	var pe *Error
+	if !errors.As(err, &pe) {
+		t.Fatalf("err = %v (%T), want *Error", err, err)
+	}
+	if !errors.Is(err, fs.ErrNotExist) {
+		t.Errorf("errors.Is(%v, fs.ErrNotExist) = false", err)
 	}
 }

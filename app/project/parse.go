@@ -40,7 +40,7 @@ func Load(path string) (*Document, error) {
 // permissions or I/O) keep their cause so that callers can tell them apart.
 func readError(path string, err error) error {
 	if errors.Is(err, fs.ErrNotExist) {
-		return &Error{File: path, Msg: "no such file"}
+		return &Error{File: path, Msg: "no such file", Err: fs.ErrNotExist}
 	}
 	var pe *fs.PathError
 	if errors.As(err, &pe) {

@@ -82,11 +82,6 @@ func vec(v r3.Vec, d int) string {
 	return "(" + fixed(v.X, d) + ", " + fixed(v.Y, d) + ", " + fixed(v.Z, d) + ")"
 }
 
-// vecSig formats a vector as "(x, y, z)" to n significant figures.
-func vecSig(v r3.Vec, n int) string {
-	return "(" + sig(v.X, n) + ", " + sig(v.Y, n) + ", " + sig(v.Z, n) + ")"
-}
-
 // deg converts radians to degrees.
 func deg(rad float64) float64 { return rad * 180 / math.Pi }
 

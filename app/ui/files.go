@@ -210,9 +210,19 @@ func (w *Window) saveTo(path string) bool {
 // pan.json". Project errors already name the file and the field.
 func (w *Window) showError(title string, err error) {
 	var pe *project.Error
-	msg := errorText(err)
+	note := ""
 	if errors.As(err, &pe) {
-		msg += "\n\nThe project you had open is unchanged."
+		note = "The project you had open is unchanged."
+	}
+	w.showErrorNote(title, err, note)
+}
+
+// showErrorNote is showError with its own closing paragraph (none when
+// note is empty).
+func (w *Window) showErrorNote(title string, err error, note string) {
+	msg := errorText(err)
+	if note != "" {
+		msg += "\n\n" + note
 	}
 	text := widget.NewLabel(msg)
 	text.Wrapping = fyne.TextWrapWord

@@ -2,7 +2,6 @@ package ui
 
 import (
 	"errors"
-	"fmt"
 	"path/filepath"
 	"strconv"
 	"strings"
@@ -109,7 +108,7 @@ func (p *footagePane) load(path string) bool {
 func (p *footagePane) loaded(path, key string, seq *footage.Sequence, err error) bool {
 	if err != nil {
 		p.resync() // the status as it was
-		p.w.showError("Could not load footage", fmt.Errorf("%w\n\nThe project is unchanged.", err))
+		p.w.showErrorNote("Could not load footage", err, "The project is unchanged.")
 		return false
 	}
 	doc := p.w.ed.Doc()
