@@ -10,6 +10,7 @@ import (
 
 	"gonum.org/v1/gonum/spatial/r3"
 
+	"propflight/internal/printable"
 	"propflight/physics"
 )
 
@@ -101,7 +102,7 @@ func writeCheckJSON(w io.Writer, f *flight) error {
 	data, err := json.MarshalIndent(newCheckJSON(f), "", "  ")
 	if err != nil {
 		// Only a NaN or infinity can get here; physics should never give one.
-		return errors.New(f.src.label + ": the result holds a value that is not a finite number")
+		return errors.New(printable.String(f.src.label) + ": the result holds a value that is not a finite number")
 	}
 	_, err = w.Write(append(data, '\n'))
 	return err
@@ -182,7 +183,7 @@ func writeSummary(w io.Writer, f *flight) {
 	row := func(name, format string, args ...any) { p(label+format, append([]any{name}, args...)...) }
 	sub := func(name, format string, args ...any) { p("  %-14s"+format, append([]any{name}, args...)...) }
 
-	p("%s  (%s)", sc.Name, f.src.label)
+	p("%s  (%s)", printable.String(sc.Name), printable.String(f.src.label))
 	p("")
 	parts := "parts"
 	if len(sc.Prop.Parts) == 1 {

@@ -3,6 +3,7 @@ package cli
 import (
 	"fmt"
 	"io"
+	"propflight/internal/printable"
 	"slices"
 	"strconv"
 	"strings"
@@ -102,13 +103,13 @@ func runExport(out io.Writer, cmd *Command) error {
 		binary := !strings.EqualFold(extension(dest), ".gltf")
 		return writeOut(out, dest, func(w io.Writer) error {
 			return export.WriteGLTF(w, in, export.GLTFOptions{Binary: binary})
-		}, fmt.Sprintf("%d frames of %s as glTF 2.0", f.take.LandingFrame+1, f.scene.Name))
+		}, fmt.Sprintf("%d frames of %s as glTF 2.0", f.take.LandingFrame+1, printable.String(f.scene.Name)))
 	}
 	write := export.WriteCSV
-	what := fmt.Sprintf("%d frames of %s", f.take.LandingFrame+1, f.scene.Name)
+	what := fmt.Sprintf("%d frames of %s", f.take.LandingFrame+1, printable.String(f.scene.Name))
 	if cmd.Switch("--twos") {
 		write = export.WriteCSVTwos
-		what = fmt.Sprintf("%d rows of %s on twos", len(export.OnTwos(f.take)), f.scene.Name)
+		what = fmt.Sprintf("%d rows of %s on twos", len(export.OnTwos(f.take)), printable.String(f.scene.Name))
 	}
 	return writeOut(out, dest, func(w io.Writer) error { return write(w, f.take) }, what)
 }
@@ -122,7 +123,7 @@ func writeOut(out io.Writer, path string, write func(io.Writer) error, what stri
 	if err := fsutil.WriteAtomic(path, write); err != nil {
 		return fmt.Errorf("%s: cannot write: %w", path, err)
 	}
-	fmt.Fprintf(out, "wrote %s: %s\n", path, what)
+	fmt.Fprintf(out, "wrote %s: %s\n", printable.String(path), what)
 	return nil
 }
 
@@ -142,6 +143,6 @@ func runPNG(out io.Writer, cmd *Command, in export.Input) error {
 	if err != nil {
 		return fmt.Errorf("%s: %w", dir, err)
 	}
-	fmt.Fprintf(out, "wrote %d images of %s into %s (%dx%d, %s view)\n", len(files), in.Name, dir, opt.Width, opt.Height, opt.View)
+	fmt.Fprintf(out, "wrote %d images of %s into %s (%dx%d, %s view)\n", len(files), printable.String(in.Name), printable.String(dir), opt.Width, opt.Height, opt.View)
 	return nil
 }

@@ -3,6 +3,7 @@ package cli
 import (
 	"fmt"
 	"io"
+	"propflight/internal/printable"
 
 	"propflight/app/project"
 	"propflight/assets"
@@ -36,7 +37,7 @@ func listPresets(w io.Writer) error {
 		if n == assets.Demo {
 			title += " (the demo)"
 		}
-		fmt.Fprintf(w, "%-*s  %s\n", width, n, title)
+		fmt.Fprintf(w, "%-*s  %s\n", width, n, printable.String(title))
 	}
 	return nil
 }

@@ -5,6 +5,7 @@ import (
 	"errors"
 	"fmt"
 	"io"
+	"propflight/internal/printable"
 	"runtime"
 	"runtime/debug"
 	"strings"
@@ -38,7 +39,7 @@ const Safety = "Planning and animation aid only: ignores air drag and contact; a
 func Run(args []string, stdout, stderr io.Writer, openWindow func(path string) error) (code int) {
 	defer func() {
 		if r := recover(); r != nil {
-			fmt.Fprintf(stderr, "propflight: internal error: %s\n", oneLine(fmt.Sprint(r)))
+			fmt.Fprintf(stderr, "propflight: internal error: %s\n", printable.String(oneLine(fmt.Sprint(r))))
 			code = ExitFailure
 		}
 	}()
@@ -86,7 +87,7 @@ func Run(args []string, stdout, stderr io.Writer, openWindow func(path string) e
 
 // fail prints err as one line and returns its exit status.
 func fail(stderr io.Writer, err error) int {
-	fmt.Fprintf(stderr, "propflight: %s\n", oneLine(err.Error()))
+	fmt.Fprintf(stderr, "propflight: %s\n", printable.String(oneLine(err.Error())))
 	return exitCode(err)
 }
 

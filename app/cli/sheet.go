@@ -4,6 +4,7 @@ import (
 	"bytes"
 	"fmt"
 	"io"
+	"propflight/internal/printable"
 
 	"propflight/app/sheet"
 )
@@ -44,5 +45,5 @@ func runSheet(out io.Writer, cmd *Command) error {
 		return err
 	}
 	return writeOut(out, cmd.Text("--output"), func(w io.Writer) error { _, err := w.Write(buf.Bytes()); return err },
-		fmt.Sprintf("timing sheet of %s, %d frames", f.scene.Name, f.take.LandingFrame+1))
+		fmt.Sprintf("timing sheet of %s, %d frames", printable.String(f.scene.Name), f.take.LandingFrame+1))
 }

@@ -12,6 +12,7 @@ import (
 	"golang.org/x/image/font/gofont/goregular"
 
 	"propflight/app/project"
+	"propflight/internal/printable"
 	"propflight/physics"
 	"propflight/widgets/wire"
 )
@@ -153,6 +154,7 @@ func newSheet(in Input, opt Options) (*sheet, error) {
 	if s.name == "" {
 		s.name = "untitled"
 	}
+	s.name = printable.String(s.name)
 	s.tm = analyse(s.tk, s.sc.Throw.FPS, &s.v)
 	s.rows = s.tm.rows(opt.Twos)
 	s.poses, s.poseStep = s.tm.poseFrames(opt.Twos, maxPoses)

@@ -417,3 +417,29 @@ func TestWrite_ReturnsWriterError(t *testing.T) {
 		t.Errorf("error %v, want the writer's", err)
 	}
 }
+
+func TestWrite_ControlCharactersInNamesEscaped(t *testing.T) {
+	// A project and a part name with ESC, BEL, CR/LF and a C1 control:
+	// the PDF's title, running head, summary and parts table show them as
+	// visible escapes.
+	src := strings.Replace(highToss, `"cutting board, high toss"`, `"board\u001b[31m\u0007\r\nnext\u009b"`, 1)
+	src = strings.Replace(src, `"name": "board"`, `"name": "slab\u001b]0;t\u0007"`, 1)
+	in := docInput(t, "hostile.json", []byte(src))
+	path := pdfFile(t, render(t, in, Options{}))
+	title := pdfInfo(t, path)["Title"]
+	text := pageText(t, path, 1, false)
+	for what, s := range map[string]string{"title": title, "page 1": text} {
+		for _, r := range s {
+			if (r < 0x20 && r != '\n' && r != '\f') || (r >= 0x7f && r < 0xa0) {
+				t.Errorf("%s holds U+%04X: %q", what, r, s)
+				break
+			}
+		}
+	}
+	if !strings.Contains(title, `board\x1b[31m\x07`) {
+		t.Errorf("title = %q, want the escaped name", title)
+	}
+	if !strings.Contains(text, `slab\x1b]0;t\x07`) {
+		t.Errorf("page 1 lacks the escaped part name:\n%s", text)
+	}
+}

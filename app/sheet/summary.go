@@ -1,5 +1,7 @@
 package sheet
 
+import "propflight/internal/printable"
+
 // Type sizes of the summary page, points.
 const (
 	sizeTitle    = 16.0
@@ -159,7 +161,7 @@ func (s *sheet) partsTable(x, y, w float64) float64 {
 	ink(p, inkText)
 	for i := range s.sc.Prop.Parts {
 		pt := &s.sc.Prop.Parts[i]
-		name := pt.Name
+		name := printable.String(pt.Name)
 		if name == "" {
 			name = "part " + itoa(i+1)
 		}

@@ -246,7 +246,7 @@ func (w *Window) confirmDiscard(action string, proceed, cancel func()) {
 		proceed()
 		return
 	}
-	name := projectName(w.ed.Doc(), w.ed.Path())
+	name := shownName(w.ed.Doc(), w.ed.Path())
 	msg := widget.NewLabel(fmt.Sprintf("%s has changes that are not saved. %s will lose them unless you save first.", name, action))
 	msg.Wrapping = fyne.TextWrapWord
 	d := dialog.NewCustomWithoutButtons("Save changes?", sized(msg, 420, 0), w.win)

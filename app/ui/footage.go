@@ -15,6 +15,7 @@ import (
 
 	"propflight/app/footage"
 	"propflight/app/project"
+	"propflight/internal/printable"
 	"propflight/physics"
 	"propflight/widgets"
 )
@@ -461,7 +462,7 @@ func (p *footagePane) showFootageFrame(f int) {
 	case f < 0 || f >= p.seq.Len():
 		p.frameLabel.SetText(fmt.Sprintf("footage frame %d: outside the clip (0 to %d)", f, p.seq.Len()-1))
 	default:
-		p.frameLabel.SetText(fmt.Sprintf("footage frame %d / %d  %s", f, p.seq.Len()-1, p.seq.Name(f)))
+		p.frameLabel.SetText(fmt.Sprintf("footage frame %d / %d  %s", f, p.seq.Len()-1, printable.String(p.seq.Name(f))))
 	}
 }
 

@@ -12,6 +12,7 @@ import (
 	"propflight/app/editor"
 	"propflight/app/project"
 	"propflight/assets"
+	"propflight/internal/printable"
 	"propflight/physics"
 	"propflight/widgets"
 )
@@ -130,7 +131,7 @@ func (p *propPanel) pickPreset(name string) {
 func (p *propPanel) sync(d *project.Document) {
 	p.labels = p.labels[:0]
 	for i := range d.Prop.Parts {
-		p.labels = append(p.labels, partLabel(&d.Prop.Parts[i], i))
+		p.labels = append(p.labels, printable.String(partLabel(&d.Prop.Parts[i], i)))
 	}
 	if p.selected >= len(p.labels) {
 		p.selected = len(p.labels) - 1
@@ -337,7 +338,7 @@ func shapeNote(shape string) string {
 func (p *propPanel) refreshLabel(i int, name, shape string) {
 	if i < len(p.labels) {
 		pt := project.Part{Name: name, Shape: shape}
-		p.labels[i] = partLabel(&pt, i)
+		p.labels[i] = printable.String(partLabel(&pt, i))
 		p.list.RefreshItem(i)
 	}
 }

@@ -13,6 +13,7 @@ import (
 	"propflight/app/editor"
 	"propflight/app/project"
 	"propflight/assets"
+	"propflight/internal/printable"
 	"propflight/physics"
 	"propflight/widgets"
 )
@@ -369,11 +370,17 @@ func heldFrame(n int, twos bool) int {
 // title is the window title: the project name, "•" when there are unsaved
 // changes, and the program's name.
 func (w *Window) title() string {
-	name := projectName(w.ed.Doc(), w.ed.Path())
+	name := shownName(w.ed.Doc(), w.ed.Path())
 	if w.dirty() {
 		name += " •"
 	}
 	return name + " — Propflight"
+}
+
+// shownName is projectName made safe to show: control characters in the
+// name come out as visible escapes (internal/printable).
+func shownName(d *project.Document, path string) string {
+	return printable.String(projectName(d, path))
 }
 
 // projectName names the project: its "name", else the file name without
