@@ -8,6 +8,7 @@ import (
 	"os"
 
 	"propflight/app/footage"
+	"propflight/app/fsutil"
 	"propflight/physics"
 )
 
@@ -71,7 +72,7 @@ func runFit(out io.Writer, c *Command) error {
 		return err
 	}
 	path := c.File
-	f, err := os.Open(path)
+	f, err := fsutil.OpenRegular(path)
 	if err != nil {
 		msg := err.Error()
 		var pe *os.PathError

@@ -43,6 +43,9 @@ func Run(args []string, stdout, stderr io.Writer, openWindow func(path string) e
 			code = ExitFailure
 		}
 	}()
+	if err := noEmptyArgs(args); err != nil {
+		return fail(stderr, err)
+	}
 	cmd, err := Parse(args)
 	if err != nil {
 		return fail(stderr, err)
@@ -83,6 +86,22 @@ func Run(args []string, stdout, stderr io.Writer, openWindow func(path string) e
 		return fail(stderr, fmt.Errorf("writing the output: %w", err))
 	}
 	return ExitOK
+}
+
+// noEmptyArgs refuses an empty argument: `check ""` must not fall back to
+// the demo, nor `-o ""` write somewhere unexpected. An empty argument is
+// most often an unset shell variable ("$FILE").
+func noEmptyArgs(args []string) error {
+	for i, a := range args {
+		if a != "" {
+			continue
+		}
+		if i > 0 && strings.HasPrefix(args[i-1], "-") && args[i-1] != "--" {
+			return usagef("%s: the value is empty (an unset shell variable?)", args[i-1])
+		}
+		return usagef("argument %d is empty: the empty path names no file (an unset shell variable?)", i+1)
+	}
+	return nil
 }
 
 // fail prints err as one line and returns its exit status.

@@ -34,7 +34,12 @@ func DefaultRecentPath() (string, error) {
 // empty one: recent files are a convenience, never a reason to fail.
 func LoadRecent(path string) *Recent {
 	r := &Recent{path: path}
-	data, err := os.ReadFile(path)
+	f0, err := fsutil.OpenRegular(path)
+	if err != nil {
+		return r
+	}
+	data, err := io.ReadAll(io.LimitReader(f0, 1<<20))
+	f0.Close()
 	if err != nil {
 		return r
 	}

@@ -11,6 +11,8 @@ import (
 	"path/filepath"
 	"slices"
 	"strings"
+
+	"propflight/app/fsutil"
 )
 
 // frameExt reports whether a folder file name is a frame: .png, .jpg or
@@ -73,7 +75,7 @@ func (s *Sequence) openFolder(dir string) error {
 // frameConfig reads the header of the PNG or JPEG frame at path and checks
 // its size against maxPix.
 func frameConfig(path string, maxPix int) (w, h int, format string, err error) {
-	f, err := os.Open(path)
+	f, err := fsutil.OpenRegular(path)
 	if err != nil {
 		return 0, 0, "", &Error{File: path, Msg: "cannot open: " + errText(err), Err: err}
 	}
@@ -118,7 +120,7 @@ func megapixels(n int64) string {
 // since Open cannot bypass the size limit. A decoder panic, which would be
 // a bug in the standard library, is returned as an error.
 func decodeFrame(path string, w, h, maxPix int) (img image.Image, err error) {
-	f, err := os.Open(path)
+	f, err := fsutil.OpenRegular(path)
 	if err != nil {
 		return nil, &Error{File: path, Msg: "cannot open: " + errText(err), Err: err}
 	}

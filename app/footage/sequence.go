@@ -9,6 +9,7 @@ import (
 	"os"
 	"path/filepath"
 
+	"propflight/app/fsutil"
 	"propflight/physics"
 )
 
@@ -102,7 +103,7 @@ func Open(path string, opt Options) (*Sequence, error) {
 
 // openFile opens a single file, which must be a GIF.
 func (s *Sequence) openFile(path string, opt Options) error {
-	f, err := os.Open(path)
+	f, err := fsutil.OpenRegular(path)
 	if err != nil {
 		return &Error{File: path, Msg: "cannot open the footage: " + errText(err), Err: err}
 	}

@@ -7,25 +7,25 @@ import (
 	"io"
 	"io/fs"
 	"math"
-	"os"
 	"slices"
 	"strconv"
 	"strings"
 
+	"propflight/app/fsutil"
 	"propflight/physics"
 )
 
 // Load reads and parses the project file at path (see Parse). Errors name
 // path as the file.
 func Load(path string) (*Document, error) {
-	f, err := os.Open(path)
+	if path == "" {
+		return nil, &Error{Msg: "the empty path names no project file"}
+	}
+	f, err := fsutil.OpenRegular(path)
 	if err != nil {
 		return nil, readError(path, err)
 	}
 	defer f.Close()
-	if info, err := f.Stat(); err == nil && info.IsDir() {
-		return nil, &Error{File: path, Msg: "is a folder, not a project file"}
-	}
 	// Read one byte past the limit to tell a file at the limit from a
 	// larger one without trusting the reported size.
 	data, err := io.ReadAll(io.LimitReader(f, MaxFileSize+1))
@@ -41,6 +41,10 @@ func Load(path string) (*Document, error) {
 func readError(path string, err error) error {
 	if errors.Is(err, fs.ErrNotExist) {
 		return &Error{File: path, Msg: "no such file", Err: fs.ErrNotExist}
+	}
+	var nr *fsutil.NotRegularError
+	if errors.As(err, &nr) {
+		return &Error{File: path, Msg: "is " + nr.Kind + ", not a project file", Err: err}
 	}
 	var pe *fs.PathError
 	if errors.As(err, &pe) {
