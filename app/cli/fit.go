@@ -64,6 +64,9 @@ func checkFit(c *Command) error {
 	return err
 }
 
+// fitFlags names the flag of each footage.FitOptions field, for errors.
+var fitFlags = map[string]string{"fps": "--fps", "gravity": "--gravity", "metres_per_pixel": "--scale"}
+
 // runFit reads the marks file, fits it and prints the summary or JSON.
 // Problems with the file are *footage.Error (exit 2).
 func runFit(out io.Writer, c *Command) error {
@@ -90,6 +93,9 @@ func runFit(out io.Writer, c *Command) error {
 	if err != nil {
 		var fe *footage.Error
 		if errors.As(err, &fe) && fe.File == "" {
+			if flag, ok := fitFlags[fe.Field]; ok {
+				return usagef("fit: %s: %s", flag, fe.Msg)
+			}
 			fe.File = path
 		}
 		return err

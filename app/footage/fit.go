@@ -7,6 +7,21 @@ import (
 	"gonum.org/v1/gonum/mat"
 )
 
+// Ranges of the fit's inputs and of what it solves. They keep every
+// derived number finite and physical, so that no report shows +Inf, NaN or
+// 0 fps.
+const (
+	MaxFitFPS = 10000 // frames per second, as physics.Rate
+	// MinFitGravity and MaxFitGravity bound a gravity given or solved,
+	// m/s^2; the project file's throw.gravity has the same range.
+	MinFitGravity = 0.01
+	MaxFitGravity = 1000
+	// MinMetresPerPixel and MaxMetresPerPixel bound a scale given or
+	// solved: a nanometre to a kilometre per pixel.
+	MinMetresPerPixel = 1e-9
+	MaxMetresPerPixel = 1e3
+)
+
 // FitOptions are what is known about the footage besides the marks.
 type FitOptions struct {
 	// FPS is the footage's frame rate, frames per second, > 0. It may be
@@ -174,10 +189,33 @@ func Fit(marks []Mark, opt FitOptions) (*FitResult, error) {
 		}
 	}
 
+	if err := r.checkSolved(opt); err != nil {
+		return nil, err
+	}
 	if err := r.fitTurn(s); err != nil {
 		return nil, err
 	}
 	return r, nil
+}
+
+// checkSolved refuses a solved frame rate, scale or gravity outside its
+// range, naming the option that led to it: the arc with these options
+// does not describe a real throw.
+func (r *FitResult) checkSolved(opt FitOptions) error {
+	given := "metres_per_pixel"
+	if opt.MetresPerPixel == 0 {
+		given = "gravity"
+	}
+	if !math.IsNaN(r.SolvedFPS) && !(r.SolvedFPS > 0 && r.SolvedFPS <= MaxFitFPS) {
+		return &Error{Field: given, Msg: fmt.Sprintf("with gravity %g m/s^2 and %g m/px the arc gives a frame rate of %.3g fps, outside 0 to %d: check the scale and the gravity", opt.Gravity, opt.MetresPerPixel, r.SolvedFPS, MaxFitFPS)}
+	}
+	if !math.IsNaN(r.SolvedGravity) && !(r.SolvedGravity >= MinFitGravity && r.SolvedGravity <= MaxFitGravity) {
+		return &Error{Field: "metres_per_pixel", Msg: fmt.Sprintf("at %g m/px the arc gives a gravity of %.3g m/s^2, outside %g to %g: check the scale", opt.MetresPerPixel, r.SolvedGravity, float64(MinFitGravity), float64(MaxFitGravity))}
+	}
+	if m := r.MetresPerPixel; !math.IsNaN(m) && !(m >= MinMetresPerPixel*1e-3 && m <= MaxMetresPerPixel*1e3) {
+		return &Error{Field: given, Msg: fmt.Sprintf("the arc gives a scale of %.3g m/px, which no footage has: check the options and the marks", m)}
+	}
+	return nil
 }
 
 // check validates the options; fields are named as in FitOptions, in
@@ -185,12 +223,12 @@ func Fit(marks []Mark, opt FitOptions) (*FitResult, error) {
 func (o FitOptions) check() error {
 	bad := func(v float64) bool { return math.IsNaN(v) || math.IsInf(v, 0) || v < 0 }
 	switch {
-	case bad(o.FPS):
-		return &Error{Field: "fps", Msg: "must be a positive number of frames per second"}
-	case bad(o.Gravity):
-		return &Error{Field: "gravity", Msg: "must be positive (m/s^2), or 0 when unknown"}
-	case bad(o.MetresPerPixel):
-		return &Error{Field: "metres_per_pixel", Msg: "must be positive (m/px), or 0 when unknown"}
+	case bad(o.FPS) || o.FPS > MaxFitFPS:
+		return &Error{Field: "fps", Msg: fmt.Sprintf("must be a positive number of frames per second, at most %d", MaxFitFPS)}
+	case bad(o.Gravity) || o.Gravity != 0 && !(o.Gravity >= MinFitGravity && o.Gravity <= MaxFitGravity):
+		return &Error{Field: "gravity", Msg: fmt.Sprintf("must be between %g and %g m/s^2, or 0 when unknown", float64(MinFitGravity), float64(MaxFitGravity))}
+	case bad(o.MetresPerPixel) || o.MetresPerPixel != 0 && !(o.MetresPerPixel >= MinMetresPerPixel && o.MetresPerPixel <= MaxMetresPerPixel):
+		return &Error{Field: "metres_per_pixel", Msg: fmt.Sprintf("must be between %g and %g m/px, or 0 when unknown", float64(MinMetresPerPixel), float64(MaxMetresPerPixel))}
 	case o.FPS == 0 && !(o.Gravity > 0 && o.MetresPerPixel > 0):
 		return &Error{Field: "fps", Msg: "must be positive (it can be left out only when both gravity and metres_per_pixel are given, to solve it)"}
 	}

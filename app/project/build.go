@@ -44,6 +44,13 @@ const (
 	minGravity  float64 = 0.01 // m/s^2
 	maxGravity  float64 = 1000 // m/s^2
 	maxTurns    float64 = 1000 // turns per second (physics.Throw.Validate)
+	// minTurns is the slowest spin other than none, turns per second (one
+	// turn in about 11.6 days, far longer than any flight): slower rates
+	// only make frames per turn and flip periods overflow on screen.
+	minTurns float64 = 1e-6
+	// maxHeading bounds |heading_deg|: one turn either way is every
+	// direction, and far larger angles lose all precision in sin and cos.
+	maxHeading float64 = 360
 )
 
 // Build applies the defaults, converts the document to physics units and
@@ -372,9 +379,19 @@ func (b *builder) velocity(t *Throw, fps physics.Rate, g float64) (r3.Vec, error
 		}
 	}
 	if t.HeadingDeg != nil {
+		if h := *t.HeadingDeg; !(math.Abs(h) <= maxHeading) {
+			return r3.Vec{}, b.fail("throw.heading_deg", "must be between -%g and %g degrees", maxHeading, maxHeading)
+		}
 		heading = deg(*t.HeadingDeg)
 	}
 	v := physics.VelocityFromHang(hang, dist, heading, g)
+	if !(isFinite(v.X) && isFinite(v.Y) && isFinite(v.Z)) {
+		field := "throw.hang_time_s"
+		if t.HangTimeS == nil {
+			field = "throw.hang_frames"
+		}
+		return r3.Vec{}, b.fail(field, "gives a release velocity that is not a finite number")
+	}
 	if math.Abs(v.X) > maxSpeed || math.Abs(v.Y) > maxSpeed || math.Abs(v.Z) > maxSpeed {
 		return r3.Vec{}, b.fail("throw.distance", "gives a release speed over %g m/s in %g s", maxSpeed, hang)
 	}
@@ -424,6 +441,8 @@ func (b *builder) spin(s *Spin, fps physics.Rate) (physics.Spin, error) {
 			return physics.Spin{}, b.fail("throw.spin.turns_per_second", "must be zero or positive (reverse the axis to spin the other way)")
 		} else if turns > maxTurns {
 			return physics.Spin{}, b.fail("throw.spin.turns_per_second", "must be at most %g turns per second", maxTurns)
+		} else if turns > 0 && turns < minTurns {
+			return physics.Spin{}, b.fail("throw.spin.turns_per_second", "must be 0 (no spin) or at least %g turns per second", minTurns)
 		}
 	} else {
 		n := *s.FramesPerTurn
@@ -432,8 +451,13 @@ func (b *builder) spin(s *Spin, fps physics.Rate) (physics.Spin, error) {
 		}
 		if turns = fps.FPS() / n; turns > maxTurns {
 			return physics.Spin{}, b.fail("throw.spin.frames_per_turn", "gives %g turns per second at %v fps, more than %g", turns, fps, maxTurns)
+		} else if turns < minTurns {
+			return physics.Spin{}, b.fail("throw.spin.frames_per_turn", "gives %.3g turns per second at %v fps, fewer than %g: leave the spin out for none", turns, fps, minTurns)
 		}
 	}
 	out.Rate = 2 * math.Pi * turns
 	return out, nil
 }
+
+// isFinite reports whether x is neither infinite nor NaN.
+func isFinite(x float64) bool { return !math.IsInf(x, 0) && !math.IsNaN(x) }

@@ -331,3 +331,38 @@ func TestLoad_MissingFileKeepsErrNotExist(t *testing.T) {
 		t.Errorf("errors.Is(%v, fs.ErrNotExist) = false", err)
 	}
 }
+
+// TestBuild_ExtremeNumbersNamed: values whose derived numbers would print
+// as +Inf (frames per turn of a denormal spin) or that break the velocity
+// from a hang time (a heading of 1e308 degrees) are refused naming the
+// field the file has.
+func TestBuild_ExtremeNumbersNamed(t *testing.T) {
+	for _, tt := range []struct{ throw, field string }{
+		{`{"spin": {"turns_per_second": 5e-324}}`, "throw.spin.turns_per_second"},
+		{`{"spin": {"turns_per_second": 1e-300}}`, "throw.spin.turns_per_second"},
+		{`{"spin": {"frames_per_turn": 1e308}}`, "throw.spin.frames_per_turn"},
+		{`{"hang_time_s": 1, "distance": 2, "heading_deg": 1e308}`, "throw.heading_deg"},
+		{`{"hang_time_s": 1, "distance": 2, "heading_deg": -1e20}`, "throw.heading_deg"},
+	} {
+		doc, err := Parse("x.json", []byte(withThrow(tt.throw)))
+		if err != nil {
+			t.Fatalf("%s: %v", tt.throw, err)
+		}
+		_, err = doc.Build()
+		var pe *Error
+		if !errors.As(err, &pe) || pe.Field != tt.field {
+			t.Errorf("%s: %v, want an error on %s", tt.throw, err, tt.field)
+		}
+	}
+	// Ordinary slow spins and headings still build.
+	for _, throw := range []string{`{"spin": {"turns_per_second": 0.01}}`, `{"spin": {"turns_per_second": 0}}`,
+		`{"hang_time_s": 1, "distance": 2, "heading_deg": -270}`} {
+		doc, err := Parse("x.json", []byte(withThrow(throw)))
+		if err == nil {
+			_, err = doc.Build()
+		}
+		if err != nil {
+			t.Errorf("%s: %v", throw, err)
+		}
+	}
+}
