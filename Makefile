@@ -3,7 +3,11 @@
 GO ?= go
 BIN := propflight
 
-.PHONY: run test build deps bench fuzz clean
+.PHONY: run test test-quick check staticcheck build deps bench fuzz clean
+
+# staticcheck is a Go tool, not a module dependency: `make staticcheck`
+# installs it into GOPATH/bin when it is missing.
+STATICCHECK := $(shell $(GO) env GOPATH)/bin/staticcheck
 
 deps:
 	@./scripts/install-deps.sh
@@ -18,9 +22,23 @@ run: build
 		echo "propflight: no display (DISPLAY is not set), so here is the demo on the terminal; run 'make run' on a desktop for the window"; \
 		./$(BIN) check; fi
 
-test: deps
+# What CI runs (.ci/run): vet, staticcheck, and every test once under the
+# race detector (the race run is the full suite, so there is no second
+# plain run).
+test: deps check
+
+check: staticcheck
+	$(GO) vet ./...
+	$(STATICCHECK) ./...
+	$(GO) test -race ./...
+
+# The plain suite without the race detector, for a quick run while working.
+test-quick:
 	$(GO) vet ./...
 	$(GO) test ./...
+
+staticcheck:
+	@[ -x "$(STATICCHECK)" ] || { echo "propflight: installing staticcheck"; $(GO) install honnef.co/go/tools/cmd/staticcheck@latest; }
 
 bench:
 	$(GO) test -run XXX -bench . -benchmem ./...
