@@ -230,6 +230,7 @@ func (st *stepper) newton(s *state, k *[gaussStages]state) (state, bool) {
 		}
 		prev = change
 	}
+	st.addTurn(s, &z)
 	// y1 = y0 + h sum b_j f(Y_j); k keeps the stage derivatives.
 	next := *s
 	for j := range gaussStages {

@@ -155,6 +155,25 @@ type stepper struct {
 	// round-off (never seen in the tests; Simulate refuses such a take).
 	unsolved     int
 	newtonMatrix stageMatrix
+	// turned accumulates the angle the body turns along its motion,
+	// integral of |omega| dt in radians, over the steps taken (the caller
+	// resets it): each step adds h sum_i b_i |omega(Y_i)|, the Gauss
+	// quadrature (order 8) over the stage values.
+	turned float64
+}
+
+// addTurn adds one step's integral of |omega| to st.turned, from the stage
+// values Y_i = s + Z_i (only their angular momenta are read).
+func (st *stepper) addTurn(s *state, z *[gaussStages]state) {
+	r := st.rot
+	var sum float64
+	for i := range gaussStages {
+		w0 := (s[0] + z[i][0]) * r.inv[0]
+		w1 := (s[1] + z[i][1]) * r.inv[1]
+		w2 := (s[2] + z[i][2]) * r.inv[2]
+		sum += gaussB[i] * math.Sqrt(w0*w0+w1*w1+w2*w2)
+	}
+	st.turned += st.h * sum
 }
 
 // step advances s by h seconds with one Gauss-Legendre step from a cold
@@ -236,6 +255,14 @@ func (st *stepper) next(b body) body {
 		st.k, st.warm = k, true
 		return next.body()
 	}
+	var z [gaussStages]state
+	for i := range gaussStages {
+		a := &ha[i]
+		for c := range 3 {
+			z[i][c] = a[0]*k[0][c] + a[1]*k[1][c] + a[2]*k[2][c] + a[3]*k[3][c]
+		}
+	}
+	st.addTurn(&s, &z)
 	for c := range 7 {
 		s[c] += h * (gaussB[0]*k[0][c] + gaussB[1]*k[1][c] + gaussB[2]*k[2][c] + gaussB[3]*k[3][c])
 	}

@@ -16,12 +16,22 @@ type Frame struct {
 	CM      r3.Vec      // centre of mass, world, m
 	Orient  quat.Number // prop frame -> world
 	Omega   r3.Vec      // angular velocity, world axes, rad/s
-	TurnDeg float64     // rotation since the previous frame, degrees (0 at frame 0)
+	TurnDeg float64     // angle turned since the previous frame along the motion, degrees (0 at frame 0; see Take)
 	Spacing float64     // centre-of-mass distance since the previous frame, m (0 at frame 0)
 }
 
 // Take is the simulated flight: one frame per frame of the throw's rate,
 // from release (frame 0) to the landing frame.
+//
+// A frame's TurnDeg is the angle the prop turns along its integrated motion
+// since the previous frame, the integral of |omega| dt over the frame
+// (Gauss quadrature over the integration steps, so it does not depend on
+// them). It is not the angle between the two end orientations, which can
+// never exceed half a turn: a steady spin of 240 degrees a frame gives 240,
+// not 120, and for a steady spin about a fixed axis it is exactly 360
+// rate/fps. Turns add: the turn over several frames, on twos or in total,
+// is the sum of their TurnDeg. Where the axis of rotation moves it is a
+// little more than the angle between the end orientations.
 type Take struct {
 	Frames       []Frame
 	FlightTime   float64 // first ground contact of the prop's lowest point, s
@@ -140,22 +150,23 @@ func Simulate(p *Prop, mp *MassProps, th *Throw) (*Take, error) {
 			steps, float64(MaxSteps))
 	}
 
+	// Every substep has the same size h, so each step's stages start the
+	// next; frame k is reached after k n steps (k n h = k dt up to round-off).
+	st := stepper{rot: &f.rot, h: h}
 	take := &Take{}
-	appendFrame := func(k int, t float64, st body) {
-		fr := Frame{N: k, Time: t, CM: th.CMAt(t), Orient: f.propOrient(st), Omega: Rotate(st.Q, f.rot.omega(st.L))}
+	appendFrame := func(k int, t float64, b body) {
+		fr := Frame{N: k, Time: t, CM: th.CMAt(t), Orient: f.propOrient(b), Omega: Rotate(b.Q, f.rot.omega(b.L))}
 		if k > 0 {
 			prev := &take.Frames[k-1]
-			fr.TurnDeg = RotationAngle(prev.Orient, fr.Orient) * 180 / math.Pi
+			fr.TurnDeg = st.turned * 180 / math.Pi
 			fr.Spacing = r3.Norm(r3.Sub(fr.CM, prev.CM))
 		}
 		take.Frames = append(take.Frames, fr)
 	}
 	appendFrame(0, 0, s)
-	// Every substep has the same size h, so each step's stages start the
-	// next; frame k is reached after k n steps (k n h = k dt up to round-off).
-	st := stepper{rot: &f.rot, h: h}
 	for k := 0; k < maxFrames; k++ {
 		t0 := th.FPS.Time(k)
+		st.turned = 0
 		for j := range n {
 			ta := t0 + float64(j)*h
 			tb := t0 + float64(j+1)*h

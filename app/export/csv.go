@@ -23,7 +23,8 @@ const CSVHeader = "frame,time_s,cg_x,cg_y,cg_z,qw,qx,qy,qz,wx,wy,wz,turn_deg,spa
 //	cg_x..cg_z     centre of mass, world, m (+Y up)
 //	qw,qx,qy,qz    unit quaternion, prop frame -> world
 //	wx,wy,wz       angular velocity, world axes, rad/s
-//	turn_deg       rotation since the previous frame, degrees (0 on frame 0)
+//	turn_deg       angle turned since the previous frame along the motion,
+//	               degrees (0 on frame 0); can exceed 180 (physics.Take)
 //	spacing_m      centre-of-mass distance since the previous frame, m (0 on frame 0)
 //
 // Numbers use the shortest form that reads back to the same float64

@@ -32,7 +32,7 @@ type timing struct {
 	keys    []int      // key frames, ascending
 	flips   []int      // frame of each flip of a tumble (first at or after the flip time)
 	onset   int        // first frame at or after the verdict's onset; -1 if none in the take
-	aliased bool       // some frame turns more than half a turn (the turn column is the shorter way)
+	aliased bool       // some frame turns more than half a turn (a camera at this rate sees it the shorter way)
 }
 
 // keyFrames returns the keys of a take with its last frame: release (0),
@@ -187,8 +187,9 @@ type row struct {
 // so the marks of that skipped frame join the row with "(at N)", its role
 // counts toward the row's, and spacing and turn are measured from the
 // previous listed row: the straight distance between the two centres of
-// mass and the rotation angle between the two orientations. On ones they
-// are the take's own Spacing and TurnDeg.
+// mass and the angle turned along the motion (the frames' TurnDeg added,
+// so a fast spin is not read the shorter way round). On ones they are the
+// take's own Spacing and TurnDeg.
 func (tm *timing) rows(twos bool) []row {
 	step := 1
 	if twos {
@@ -205,7 +206,7 @@ func (tm *timing) rows(twos bool) []row {
 		default:
 			p := &tm.frames[i-step]
 			r.spacing = r3.Norm(r3.Sub(f.CM, p.CM))
-			r.turn = deg(physics.RotationAngle(p.Orient, f.Orient))
+			r.turn = tm.total[i] - tm.total[i-step]
 		}
 		for j := i + 1; j < i+step && j < len(tm.frames); j++ {
 			r.role = max(r.role, tm.roles[j])

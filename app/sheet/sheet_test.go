@@ -118,23 +118,20 @@ func checkRows(t *testing.T, in Input, rows []tableRow, step int) {
 		if step == 1 {
 			spacing, turn = csvNum(t, c["spacing_m"]), csvNum(t, c["turn_deg"])
 		} else {
-			// On twos: from the previous listed row's CSV position and
-			// orientation.
+			// On twos: spacing from the previous listed row's CSV position,
+			// turn the CSV's turn_deg of the frames since it, added (the
+			// angle turned along the motion).
 			p := recs[r.frame-step]
 			dx := csvNum(t, c["cg_x"]) - csvNum(t, p["cg_x"])
 			dy := csvNum(t, c["cg_y"]) - csvNum(t, p["cg_y"])
 			dz := csvNum(t, c["cg_z"]) - csvNum(t, p["cg_z"])
 			spacing = math.Sqrt(dx*dx + dy*dy + dz*dz)
-			dot := 0.0
-			for _, k := range []string{"qw", "qx", "qy", "qz"} {
-				dot += csvNum(t, c[k]) * csvNum(t, p[k])
-			}
-			turn = 2 * math.Acos(math.Min(1, math.Abs(dot))) * 180 / math.Pi
+			turn = total[r.frame] - total[r.frame-step]
 		}
 		if p := num(t, r.spacing); !sameToDecimals(p, spacing, DecimalsMetres) {
 			t.Errorf("frame %d spacing: printed %s, CSV %g", r.frame, r.spacing, spacing)
 		}
-		// The acos form above loses precision near 0; allow 1e-6 degrees.
+		// Allow 1e-6 degrees for the sums' round-off.
 		if p := num(t, r.turn); math.Abs(p-turn) > 0.5*pow10(-DecimalsTurn)+1e-6 {
 			t.Errorf("frame %d turn: printed %s, CSV %g", r.frame, r.turn, turn)
 		}

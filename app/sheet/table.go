@@ -59,7 +59,7 @@ func (s *sheet) notes() []string {
 			"Breakdowns: the frame halfway between two consecutive keys a and b, (a + b) / 2 rounded down; none where the keys are less than two frames apart.",
 		"Marks: 90°, 180°, ... where the total turn (the sum of the turns from frame to frame) reaches a multiple of a quarter turn; flip k where a tumble's middle axis reverses " +
 			"(first flip + (k − 1) × flip period, on the first frame at or after it); onset where a spin near the middle axis starts to grow (the verdict's onset time, same rule).",
-		"Spacing is the straight distance the centre of mass moves since the previous row, turn the angle the prop turns since then (the shorter way round). " +
+		"Spacing is the straight distance the centre of mass moves since the previous row, turn the angle the prop turns along its motion since then (more than 180° for a fast spin). " +
 			"Values are the take's, rounded: metres to 4 decimals, turn to 2, total turn to 1.",
 	}
 	if s.opt.Twos {
@@ -67,8 +67,8 @@ func (s *sheet) notes() []string {
 			"and spacing and turn are measured from the previous listed row.")
 	}
 	if s.tm.aliased {
-		n = append(n, "Caution: somewhere the prop turns more than half a turn in one frame, so the turn and total turn columns show the shorter way round, "+
-			"as a camera at this frame rate sees it (the wagon-wheel effect); the real spin is faster.")
+		n = append(n, "Caution: somewhere the prop turns more than half a turn in one frame; the turn columns give the real turn, but drawings "+
+			"(or a camera) at this frame rate read it the shorter way round (the wagon-wheel effect): add in-betweens or lower the spin.")
 	}
 	return n
 }
