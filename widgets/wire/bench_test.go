@@ -1,7 +1,9 @@
 package wire_test
 
 import (
+	"gonum.org/v1/gonum/spatial/r3"
 	"image"
+	"propflight/internal/fixture"
 	"testing"
 
 	"propflight/physics"
@@ -95,4 +97,29 @@ func BenchmarkPartMesh(b *testing.B) {
 			_ = wire.PartMesh(&parts[i], wire.DefaultDetail)
 		}
 	}
+}
+
+// BenchmarkNewOutline prepares the outline of a 201,600-triangle pan body
+// (fixture.PanBowl(600, 24)): done once per mesh.
+func BenchmarkNewOutline(b *testing.B) {
+	v, t := fixture.PanBowl(600, 24)
+	b.ReportMetric(float64(len(t)), "triangles")
+	for b.Loop() {
+		_ = wire.NewOutline(v, t, 0)
+	}
+}
+
+// BenchmarkContour is the per-pose work on the same mesh: one facing pass
+// over the faces and one over the smooth edges, perspective.
+func BenchmarkContour(b *testing.B) {
+	v, t := fixture.PanBowl(600, 24)
+	o := wire.NewOutline(v, t, 0)
+	var dst [][2]int32
+	var front []bool
+	eye := r3.Vec{X: 0.4, Y: 0.5, Z: 0.9}
+	for b.Loop() {
+		dst, front = o.Contour(dst[:0], eye, false, front)
+	}
+	b.ReportMetric(float64(len(dst)), "contour_edges")
+	b.ReportMetric(float64(len(o.Creases())), "creases")
 }

@@ -139,7 +139,8 @@ func Draw(cam Camera, sc Scene) Drawing {
 	w, h := lens.Size()
 	ls := max(sc.LabelScale, 1)
 	d := &drawer{lens: lens, out: Drawing{Width: w, Height: h, LabelScale: ls}, ls: float64(ls)}
-	d.right, _, _ = cam.Axes()
+	d.right, _, d.back = cam.Axes()
+	d.ortho, d.eye = cam.Ortho, cam.Eye()
 	d.xmax, d.ymax = float64(w)+clipPad, float64(h)+clipPad
 
 	mp := sc.Mass
@@ -243,6 +244,9 @@ func bounds(sc Scene, mp *physics.MassProps, pw *propWire) r3.Box {
 		for _, v := range pw.verts {
 			grow(r3.Add(cm, rot.MulVec(v)))
 		}
+		for _, v := range pw.hull {
+			grow(r3.Add(cm, rot.MulVec(v)))
+		}
 		if sc.ShowAxes && mp != nil {
 			for _, a := range mp.Axes {
 				grow(r3.Add(cm, rot.MulVec(r3.Scale(AxisScale*pw.radius, a))))
@@ -289,11 +293,22 @@ func pose(frames []physics.Frame, i int, mp *physics.MassProps) (r3.Vec, physics
 func onionAlpha(k, n int) float64 { return OnionAlpha * (1 - float64(k-1)/float64(n)) }
 
 // propWire is the prop's wireframe ready to place: the vertices the edges
-// use, relative to the centre of mass in prop axes.
+// use, relative to the centre of mass in prop axes, and the outlines of its
+// mesh parts, whose contours change with the view.
 type propWire struct {
-	verts  []r3.Vec
-	edges  [][2]uint32
-	radius float64 // largest |vertex|, m
+	verts    []r3.Vec
+	edges    [][2]uint32
+	hull     []r3.Vec // more points that bound the prop (mesh parts' extremes), like verts
+	outlines []placedOutline
+	radius   float64 // largest |vertex|, m
+}
+
+// placedOutline is a mesh part's outline in the prop: a mesh point v is at
+// pos + rot v relative to the prop's centre of mass, prop axes.
+type placedOutline struct {
+	o   *Outline
+	rot physics.Mat3
+	pos r3.Vec
 }
 
 func newPropWire(p *physics.Prop, mp *physics.MassProps, detail int) *propWire {
@@ -303,25 +318,60 @@ func newPropWire(p *physics.Prop, mp *physics.MassProps, detail int) *propWire {
 	if detail == 0 {
 		detail = DefaultDetail
 	}
-	m := PropMesh(p, detail)
 	pw := &propWire{}
-	remap := make(map[uint32]uint32, len(m.Edges))
-	use := func(i uint32) uint32 {
-		if j, ok := remap[i]; ok {
+	for i := range p.Parts {
+		pt := &p.Parts[i]
+		r := physics.Mat(physics.Normalize(pt.Orient))
+		pos := r3.Sub(pt.Position, mp.CM)
+		if o, mv := partOutline(pt); o != nil {
+			// A mesh part: its creases are fixed lines, its contour is
+			// found per pose; its extremes bound it.
+			po := placedOutline{o: o, rot: r, pos: pos}
+			pw.outlines = append(pw.outlines, po)
+			remap := make(map[int32]uint32, 2*len(o.Creases()))
+			use := func(i int32) uint32 {
+				if j, ok := remap[i]; ok {
+					return j
+				}
+				j := uint32(len(pw.verts))
+				pw.verts = append(pw.verts, r3.Add(pos, r.MulVec(o.Vertex(i))))
+				remap[i] = j
+				return j
+			}
+			for _, e := range o.Creases() {
+				pw.edges = append(pw.edges, [2]uint32{use(e[0]), use(e[1])})
+			}
+			for _, i := range o.Extremes() {
+				pw.hull = append(pw.hull, r3.Add(pos, r.MulVec(o.Vertex(i))))
+			}
+			// The radius is the farthest vertex of all, not of the extremes.
+			c := r.T().MulVec(r3.Scale(-1, pos)) // the centre of mass in the mesh's frame
+			for _, v := range mv {
+				dx, dy, dz := v.X-c.X, v.Y-c.Y, v.Z-c.Z
+				pw.radius = math.Max(pw.radius, dx*dx+dy*dy+dz*dz)
+			}
+			continue
+		}
+		m := PartMesh(pt, detail)
+		remap := make(map[uint32]uint32, len(m.Edges))
+		use := func(i uint32) uint32 {
+			if j, ok := remap[i]; ok {
+				return j
+			}
+			j := uint32(len(pw.verts))
+			pw.verts = append(pw.verts, r3.Add(pos, r.MulVec(m.Vertices[i])))
+			remap[i] = j
 			return j
 		}
-		j := uint32(len(pw.verts))
-		v := r3.Sub(m.Vertices[i], mp.CM)
-		pw.verts = append(pw.verts, v)
-		remap[i] = j
-		return j
+		for _, e := range m.Edges {
+			pw.edges = append(pw.edges, [2]uint32{use(e[0]), use(e[1])})
+		}
+		for _, v := range m.Vertices {
+			w := r3.Add(pos, r.MulVec(v))
+			pw.radius = math.Max(pw.radius, r3.Dot(w, w))
+		}
 	}
-	for _, e := range m.Edges {
-		pw.edges = append(pw.edges, [2]uint32{use(e[0]), use(e[1])})
-	}
-	for _, v := range m.Vertices {
-		pw.radius = math.Max(pw.radius, r3.Norm(r3.Sub(v, mp.CM)))
-	}
+	pw.radius = math.Sqrt(pw.radius)
 	if !(pw.radius > 0) || !finite(pw.radius) {
 		pw.radius = 0.1
 	}
@@ -336,6 +386,12 @@ type drawer struct {
 	right      r3.Vec   // the camera's screen-right axis, world
 	world      []r3.Vec // scratch for placed vertices
 	radius     float64  // the prop's radius, m (0 with no prop)
+	// The view for mesh contours: orthographic or not, the unit vector
+	// toward the viewer and the eye, world.
+	ortho     bool
+	back, eye r3.Vec
+	edges     [][2]int32 // scratch for contour edges
+	front     []bool     // scratch for facing faces
 	// avoid is a screen disc (x, y, radius in pixels) that labels keep out
 	// of: the current prop.
 	avoid [3]float64
@@ -350,6 +406,30 @@ func (d *drawer) prop(pw *propWire, cm r3.Vec, rot physics.Mat3, k Kind, alpha f
 	}
 	for _, e := range pw.edges {
 		d.segment3(d.world[e[0]], d.world[e[1]], k, alpha)
+	}
+	for i := range pw.outlines {
+		d.contour(&pw.outlines[i], cm, rot, k, alpha)
+	}
+}
+
+// contour draws the smooth edges of a mesh part on its contour in this
+// pose: the view (toward the viewer, or the eye) is taken into the mesh's
+// frame, where the outline's face normals are.
+func (d *drawer) contour(po *placedOutline, cm r3.Vec, rot physics.Mat3, k Kind, alpha float64) {
+	m := rot.Mul(po.rot)                     // mesh frame -> world
+	origin := r3.Add(cm, rot.MulVec(po.pos)) // the mesh's origin, world
+	mt := m.T()
+	var view r3.Vec
+	if d.ortho {
+		view = mt.MulVec(d.back)
+	} else {
+		view = mt.MulVec(r3.Sub(d.eye, origin))
+	}
+	d.edges, d.front = po.o.Contour(d.edges[:0], view, d.ortho, d.front)
+	for _, e := range d.edges {
+		a := r3.Add(origin, m.MulVec(po.o.Vertex(e[0])))
+		b := r3.Add(origin, m.MulVec(po.o.Vertex(e[1])))
+		d.segment3(a, b, k, alpha)
 	}
 }
 

