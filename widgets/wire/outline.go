@@ -2,10 +2,14 @@ package wire
 
 import (
 	"math"
+	"runtime"
+	"sync"
+	"weak"
 
 	"gonum.org/v1/gonum/spatial/r3"
 
 	"propflight/physics"
+	"propflight/physics/mesh"
 )
 
 // CreaseAngle is the default crease threshold of NewOutline, radians: an
@@ -241,6 +245,46 @@ func (o *Outline) Contour(dst [][2]int32, view r3.Vec, ortho bool, front []bool)
 		}
 	}
 	return dst, front
+}
+
+// outlines caches one Outline per mesh, keyed by the mesh's address and
+// held weakly: an entry goes when its mesh is garbage collected (a
+// cleanup on the mesh removes it), so closing a project frees its
+// outlines. A mesh.Mesh is read-only once made, so its outline never goes
+// stale.
+var outlines = struct {
+	sync.Mutex
+	m map[weak.Pointer[mesh.Mesh]]*outlineEntry
+}{m: map[weak.Pointer[mesh.Mesh]]*outlineEntry{}}
+
+type outlineEntry struct {
+	once sync.Once
+	o    *Outline
+}
+
+// MeshOutline returns the outline of m at CreaseAngle, computed on the
+// first call for m and cached for the mesh's lifetime: drawing a mesh part
+// in a new frame costs only its contour pass. Safe for concurrent use; a
+// nil mesh has no outline (nil).
+func MeshOutline(m *mesh.Mesh) *Outline {
+	if m == nil {
+		return nil
+	}
+	k := weak.Make(m)
+	outlines.Lock()
+	e, ok := outlines.m[k]
+	if !ok {
+		e = &outlineEntry{}
+		outlines.m[k] = e
+		runtime.AddCleanup(m, func(k weak.Pointer[mesh.Mesh]) {
+			outlines.Lock()
+			delete(outlines.m, k)
+			outlines.Unlock()
+		}, k)
+	}
+	outlines.Unlock()
+	e.once.Do(func() { e.o = NewOutline(m.V, m.T, CreaseAngle) })
+	return e.o
 }
 
 // partOutline returns the outline of a mesh part and the mesh's vertices,

@@ -7,6 +7,7 @@ import (
 
 	"gonum.org/v1/gonum/spatial/r3"
 
+	"propflight/physics/mesh"
 	"propflight/widgets/wire"
 )
 
@@ -294,5 +295,25 @@ func TestOutline_Extremes(t *testing.T) {
 		if best < 0.9 {
 			t.Errorf("direction %v: extremes reach only %.3f of the radius", d, best)
 		}
+	}
+}
+
+// TestMeshOutline_Cached: the outline of a mesh is made once and handed
+// back for the same mesh; another mesh gets its own.
+func TestMeshOutline_Cached(t *testing.T) {
+	v, tr := weldedBox(r3.Vec{X: 1, Y: 1, Z: 1})
+	m1, m2 := &mesh.Mesh{V: v, T: tr}, &mesh.Mesh{V: v, T: tr}
+	o1 := wire.MeshOutline(m1)
+	if o1 == nil || len(o1.Creases()) != 12 {
+		t.Fatalf("outline of the box mesh: %v", o1)
+	}
+	if wire.MeshOutline(m1) != o1 {
+		t.Errorf("a second call made a new outline")
+	}
+	if wire.MeshOutline(m2) == o1 {
+		t.Errorf("another mesh shares the first one's outline")
+	}
+	if wire.MeshOutline(nil) != nil {
+		t.Errorf("nil mesh: want no outline")
 	}
 }
