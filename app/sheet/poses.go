@@ -47,17 +47,9 @@ func (tm *timing) poseFrames(twos bool, limit int) ([]int, int) {
 }
 
 // propRadius returns the largest distance of the prop's mesh from its
-// centre of mass, m.
+// centre of mass, m (a mesh part's own vertices, not a tessellation).
 func (s *sheet) propRadius() float64 {
-	m := wire.PropMesh(&s.sc.Prop, wire.DefaultDetail)
-	r := 0.0
-	for _, v := range m.Vertices {
-		r = math.Max(r, r3.Norm(r3.Sub(v, s.sc.Mass.CM)))
-	}
-	if !(r > 0) || math.IsInf(r, 0) {
-		r = 0.1
-	}
-	return r
+	return wire.Radius(&s.sc.Prop, &s.sc.Mass, wire.DefaultDetail)
 }
 
 // posePage draws the prop at each pose frame in a grid of cells, every

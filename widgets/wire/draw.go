@@ -227,6 +227,17 @@ func Bounds(sc Scene) r3.Box {
 	return bounds(sc, mp, newPropWire(sc.Prop, mp, sc.Detail))
 }
 
+// Radius returns the largest distance of a vertex of the prop's meshes
+// (PartMesh at detail; a mesh part's own vertices) from the centre of mass
+// mp.CM, m: what Draw scales the principal axes by. With no prop or no
+// mass properties it is 0.1 m.
+func Radius(p *physics.Prop, mp *physics.MassProps, detail int) float64 {
+	if pw := newPropWire(p, mp, detail); pw != nil {
+		return pw.radius
+	}
+	return 0.1
+}
+
 func bounds(sc Scene, mp *physics.MassProps, pw *propWire) r3.Box {
 	inf := math.Inf(1)
 	b := r3.Box{Min: r3.Vec{X: inf, Y: inf, Z: inf}, Max: r3.Vec{X: -inf, Y: -inf, Z: -inf}}
