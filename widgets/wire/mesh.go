@@ -51,7 +51,9 @@ func Segments(detail int) int {
 // its base at z = -h/4; a box's Size is its full edges; an ellipsoid's
 // SemiAxes lie along x, y, z; a shell is meshed as its sphere; a tube with
 // no inner radius is a cylinder. detail is the number of segments around a
-// full circle (see Segments). A part with bad fields gives a mesh of its
+// full circle (see Segments). A mesh part is its own triangles in the
+// file's frame (its origin is the file's, not the centre of mass), with
+// normals and edges by Surface; detail does not apply. A part with bad fields gives a mesh of its
 // (possibly meaningless) numbers, and an unknown shape an empty mesh.
 func PartMesh(p *physics.Part, detail int) Mesh {
 	n := Segments(detail)

@@ -51,6 +51,12 @@ type Outline struct {
 	normal  [][3]float64 // unit outward normal of each face; zero for a degenerate face
 	offset  []float64    // normal . first vertex of each face
 	extreme []int32      // farthest vertex along each sample direction, without repeats
+	// Faces are kept in patches (see buildPatches): inner lists each
+	// patch's smooth edges (indices into smooth and sides) and border the
+	// smooth edges between two patches.
+	patches []patch
+	inner   []int32
+	border  []int32
 }
 
 // NewOutline prepares the line drawing of the triangle mesh (v, t) with
@@ -149,6 +155,7 @@ func NewOutline(v []r3.Vec, t [][3]int32, angle float64) *Outline {
 			o.sides = append(o.sides, [2]int32{faces[0], faces[1]})
 		}
 	}
+	o.buildPatches(v, t)
 	o.extreme = extremes(v)
 	return o
 }
@@ -230,18 +237,38 @@ func (o *Outline) Contour(dst [][2]int32, view r3.Vec, ortho bool, front []bool)
 	}
 	front = front[:len(o.normal)]
 	wx, wy, wz := view.X, view.Y, view.Z
-	if ortho {
-		for f, n := range o.normal {
-			front[f] = n[0]*wx+n[1]*wy+n[2]*wz > 0
+	for p := range o.patches {
+		pa := &o.patches[p]
+		from, to := p*patchFaces, min((p+1)*patchFaces, len(o.normal))
+		if c := pa.facing(view, ortho); c != mixed {
+			// Decided as a whole: no contour inside; its faces' verdict is
+			// for the border edges.
+			fr := c == allFront
+			for f := from; f < to; f++ {
+				front[f] = fr
+			}
+			continue
 		}
-	} else {
-		for f, n := range o.normal {
-			front[f] = n[0]*wx+n[1]*wy+n[2]*wz > o.offset[f]
+		if ortho {
+			for f := from; f < to; f++ {
+				n := &o.normal[f]
+				front[f] = n[0]*wx+n[1]*wy+n[2]*wz > 0
+			}
+		} else {
+			for f := from; f < to; f++ {
+				n := &o.normal[f]
+				front[f] = n[0]*wx+n[1]*wy+n[2]*wz > o.offset[f]
+			}
+		}
+		for _, e := range o.inner[pa.from:pa.to] {
+			if s := o.sides[e]; front[s[0]] != front[s[1]] {
+				dst = append(dst, o.smooth[e])
+			}
 		}
 	}
-	for i, s := range o.sides {
-		if front[s[0]] != front[s[1]] {
-			dst = append(dst, o.smooth[i])
+	for _, e := range o.border {
+		if s := o.sides[e]; front[s[0]] != front[s[1]] {
+			dst = append(dst, o.smooth[e])
 		}
 	}
 	return dst, front
@@ -289,4 +316,6 @@ func MeshOutline(m *mesh.Mesh) *Outline {
 
 // partOutline returns the outline of a mesh part and the mesh's vertices,
 // or nil for a primitive.
-func partOutline(p *physics.Part) (*Outline, []r3.Vec) { return nil, nil }
+func partOutline(p *physics.Part) (*Outline, []r3.Vec) {
+	return nil, nil
+}

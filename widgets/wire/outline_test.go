@@ -7,6 +7,7 @@ import (
 
 	"gonum.org/v1/gonum/spatial/r3"
 
+	"propflight/internal/fixture"
 	"propflight/physics/mesh"
 	"propflight/widgets/wire"
 )
@@ -180,6 +181,50 @@ func TestOutline_Cylinder(t *testing.T) {
 	}
 	if got := len(wire.NewOutline(v12, t12, 25*math.Pi/180).Creases()); got != 36 {
 		t.Errorf("12-gon at 25 degrees: %d creases, want 36 (rims and the 12 generators)", got)
+	}
+}
+
+// TestOutline_ContourOracle_Pan: on the thin-walled pan body (sharp rim,
+// smooth fillets, faces in patches that Contour decides as a whole) in
+// random views from near and far, Contour equals the slow definition.
+func TestOutline_ContourOracle_Pan(t *testing.T) {
+	v, tr := fixture.PanBowl(96, 8)
+	o := wire.NewOutline(v, tr, 0)
+	ef := edgeFaces(tr)
+	rng := rand.New(rand.NewPCG(1, 3))
+	var front []bool
+	for k := range 60 {
+		d := r3.Unit(r3.Vec{X: rng.NormFloat64(), Y: rng.NormFloat64(), Z: rng.NormFloat64()})
+		ortho := k%2 == 0
+		view := d
+		if !ortho {
+			view = r3.Scale(0.05+3*rng.Float64(), d) // from inside the bowl's reach to 3 m
+		}
+		var got [][2]int32
+		got, front = o.Contour(nil, view, ortho, front)
+		faces := func(f int) bool {
+			n := faceNormal(v, tr[f])
+			if ortho {
+				return r3.Dot(n, view) > 0
+			}
+			return r3.Dot(n, r3.Sub(view, v[tr[f][0]])) > 0
+		}
+		creases := edgeSet(o.Creases())
+		want := map[[2]int32]bool{}
+		for e, fs := range ef {
+			if len(fs) == 2 && !creases[e] && faces(fs[0]) != faces(fs[1]) {
+				want[e] = true
+			}
+		}
+		gs := edgeSet(got)
+		if len(gs) != len(got) || len(gs) != len(want) {
+			t.Fatalf("view %v ortho %v: %d contour edges (%d distinct), want %d", view, ortho, len(got), len(gs), len(want))
+		}
+		for e := range want {
+			if !gs[e] {
+				t.Fatalf("view %v ortho %v: edge %v missing", view, ortho, e)
+			}
+		}
 	}
 }
 

@@ -1,0 +1,238 @@
+package wire
+
+import (
+	"math"
+	"slices"
+
+	"gonum.org/v1/gonum/spatial/r3"
+)
+
+// patchFaces is the number of faces in a patch of an Outline.
+const patchFaces = 64
+
+// patch is a run of patchFaces faces that lie close together (faces are
+// ordered along a Morton curve through their centroids), with bounds that
+// let Contour decide for all of them at once which way they turn:
+// every face normal is within half of axis, every vertex within radius of
+// centre (Sander, Gu, Gortler, Hoppe and Snyder, "Silhouette clipping",
+// SIGGRAPH 2000, §4, test their anchored normal cones the same way).
+type patch struct {
+	axis   r3.Vec // unit
+	half   float64
+	cosH   float64 // cos and sin of half
+	sinH   float64
+	centre r3.Vec
+	radius float64
+	// edges[from:to] of Outline.inner are the smooth edges with both faces
+	// in the patch.
+	from, to int32
+}
+
+// Facing of a whole patch.
+const (
+	mixed = iota
+	allFront
+	allBack
+)
+
+// cullMargin widens the patch tests so that rounding never puts a face in
+// a patch decided the other way from its own test (relative to the sizes
+// involved).
+const cullMargin = 1e-9
+
+// buildPatches puts the faces in Morton order of their centroids, groups
+// them in patches and sorts the smooth edges into each patch's own
+// (inner) and those between patches (border). It rewrites o.normal,
+// o.offset and o.sides in the new face order.
+func (o *Outline) buildPatches(v []r3.Vec, t [][3]int32) {
+	nf := len(o.normal)
+	if nf == 0 {
+		return
+	}
+	lo := r3.Vec{X: math.Inf(1), Y: math.Inf(1), Z: math.Inf(1)}
+	hi := r3.Scale(-1, lo)
+	cent := make([]r3.Vec, nf)
+	for f, tr := range t {
+		if o.normal[f] == ([3]float64{}) {
+			continue
+		}
+		c := r3.Scale(1.0/3, r3.Add(v[tr[0]], r3.Add(v[tr[1]], v[tr[2]])))
+		cent[f] = c
+		lo = r3.Vec{X: math.Min(lo.X, c.X), Y: math.Min(lo.Y, c.Y), Z: math.Min(lo.Z, c.Z)}
+		hi = r3.Vec{X: math.Max(hi.X, c.X), Y: math.Max(hi.Y, c.Y), Z: math.Max(hi.Z, c.Z)}
+	}
+	span := math.Max(hi.X-lo.X, math.Max(hi.Y-lo.Y, hi.Z-lo.Z))
+	if !(span > 0) || math.IsInf(span, 0) {
+		span = 1
+	}
+	// Sort on the normal's bin first, so that a thin wall's two sides
+	// never share a patch, then along the Morton curve.
+	type faceKey struct {
+		key uint64
+		f   int32
+	}
+	keys := make([]faceKey, nf)
+	q := func(x float64) uint64 { return uint64(math.Min(1023, math.Max(0, (x/span)*1023))) }
+	for f := range nf {
+		c := r3.Sub(cent[f], lo)
+		keys[f] = faceKey{normalBin(o.normal[f])<<30 | morton(q(c.X), q(c.Y), q(c.Z)), int32(f)}
+	}
+	slices.SortFunc(keys, func(a, b faceKey) int {
+		if a.key != b.key {
+			if a.key < b.key {
+				return -1
+			}
+			return 1
+		}
+		return int(a.f - b.f)
+	})
+	pos := make([]int32, nf) // face -> place in the new order
+	order := make([]int32, nf)
+	normal := make([][3]float64, nf)
+	offset := make([]float64, nf)
+	for i, k := range keys {
+		pos[k.f], order[i] = int32(i), k.f
+		normal[i], offset[i] = o.normal[k.f], o.offset[k.f]
+	}
+	o.normal, o.offset = normal, offset
+
+	np := (nf + patchFaces - 1) / patchFaces
+	o.patches = make([]patch, np)
+	for p := range o.patches {
+		pa := &o.patches[p]
+		from, to := p*patchFaces, min((p+1)*patchFaces, nf)
+		var sum r3.Vec
+		blo := r3.Vec{X: math.Inf(1), Y: math.Inf(1), Z: math.Inf(1)}
+		bhi := r3.Scale(-1, blo)
+		for i := from; i < to; i++ {
+			n := normal[i]
+			sum = r3.Add(sum, r3.Vec{X: n[0], Y: n[1], Z: n[2]})
+			if n == ([3]float64{}) {
+				continue
+			}
+			for _, j := range t[order[i]] {
+				w := v[j]
+				blo = r3.Vec{X: math.Min(blo.X, w.X), Y: math.Min(blo.Y, w.Y), Z: math.Min(blo.Z, w.Z)}
+				bhi = r3.Vec{X: math.Max(bhi.X, w.X), Y: math.Max(bhi.Y, w.Y), Z: math.Max(bhi.Z, w.Z)}
+			}
+		}
+		pa.half = math.Pi // undecidable unless shown otherwise
+		l := r3.Norm(sum)
+		if !(l > 0) || math.IsInf(blo.X, 0) {
+			continue
+		}
+		pa.axis = r3.Scale(1/l, sum)
+		pa.half = 0
+		pa.centre = r3.Scale(0.5, r3.Add(blo, bhi))
+		for i := from; i < to; i++ {
+			n := normal[i]
+			if n == ([3]float64{}) {
+				pa.half = math.Pi // a degenerate face turns neither way: test each
+				break
+			}
+			pa.half = math.Max(pa.half, math.Acos(math.Min(1, n[0]*pa.axis.X+n[1]*pa.axis.Y+n[2]*pa.axis.Z)))
+			for _, j := range t[order[i]] {
+				pa.radius = math.Max(pa.radius, r3.Norm(r3.Sub(v[j], pa.centre)))
+			}
+		}
+		pa.half += cullMargin
+		pa.sinH, pa.cosH = math.Sincos(pa.half)
+	}
+
+	// Smooth edges: renumber their faces, then inner edges grouped by
+	// patch, border edges apart.
+	counts := make([]int32, np+1)
+	for i := range o.sides {
+		s := &o.sides[i]
+		s[0], s[1] = pos[s[0]], pos[s[1]]
+		if p0, p1 := s[0]/patchFaces, s[1]/patchFaces; p0 == p1 {
+			counts[p0+1]++
+		}
+	}
+	for p := range np {
+		counts[p+1] += counts[p]
+		o.patches[p].from, o.patches[p].to = counts[p], counts[p+1]
+	}
+	o.inner = make([]int32, counts[np])
+	fill := append([]int32(nil), counts[:np]...)
+	o.border = o.border[:0]
+	for i, s := range o.sides {
+		if p0, p1 := s[0]/patchFaces, s[1]/patchFaces; p0 == p1 {
+			o.inner[fill[p0]] = int32(i)
+			fill[p0]++
+		} else {
+			o.border = append(o.border, int32(i))
+		}
+	}
+}
+
+// normalBin sorts unit normals into 96 bins: the cube face the normal
+// points through (6), then a 4 x 4 grid on that face.
+func normalBin(n [3]float64) uint64 {
+	k := 0
+	for i := 1; i < 3; i++ {
+		if math.Abs(n[i]) > math.Abs(n[k]) {
+			k = i
+		}
+	}
+	d := math.Abs(n[k])
+	if !(d > 0) {
+		return 0
+	}
+	face := uint64(2 * k)
+	if n[k] < 0 {
+		face++
+	}
+	cell := func(x float64) uint64 { return uint64(math.Min(3, math.Max(0, (x/d+1)*2))) }
+	return face*16 + cell(n[(k+1)%3])*4 + cell(n[(k+2)%3])
+}
+
+// morton interleaves the low 10 bits of x, y and z.
+func morton(x, y, z uint64) uint64 {
+	spread := func(a uint64) uint64 {
+		a &= 0x3ff
+		a = (a | a<<16) & 0x30000ff
+		a = (a | a<<8) & 0x300f00f
+		a = (a | a<<4) & 0x30c30c3
+		a = (a | a<<2) & 0x9249249
+		return a
+	}
+	return spread(x) | spread(y)<<1 | spread(z)<<2
+}
+
+// facing decides a patch as a whole, or says it is mixed. For an
+// orthographic view (w toward the viewer), every normal n within half of
+// axis has n . w >= |w| cos(a + half), a the angle between axis and w. For
+// a perspective eye e, a face with vertex p has n . (e - p) >= |w| cos(a +
+// half) - radius with w = e - centre, since |p - centre| <= radius; the
+// bounds the other way are alike with cos(a - half). |w| cos(a +- half)
+// is D cos half -+ S sin half with D = axis . w and S = |axis x w|.
+func (pa *patch) facing(view r3.Vec, ortho bool) int {
+	if pa.half >= math.Pi/2 {
+		return mixed
+	}
+	w := view
+	if !ortho {
+		w = r3.Sub(view, pa.centre)
+	}
+	d2 := r3.Dot(w, w)
+	if !(d2 > 0) || math.IsInf(d2, 0) {
+		return mixed
+	}
+	dist := math.Sqrt(d2)
+	dd := r3.Dot(pa.axis, w)
+	ss := math.Sqrt(math.Max(0, d2-dd*dd))
+	lower := dd*pa.cosH - ss*pa.sinH // |w| cos(a + half)
+	upper := dd*pa.cosH + ss*pa.sinH // |w| cos(a - half)
+	slack := cullMargin * dist
+	if !ortho {
+		slack = pa.radius + cullMargin*(dist+pa.radius+r3.Norm(pa.centre))
+	}
+	switch {
+	case lower > slack:
+		return allFront
+	case upper < -slack:
+		return allBack
+	}
+	return mixed
+}
