@@ -155,6 +155,14 @@ func Draw(cam Camera, sc Scene) Drawing {
 	pw := newPropWire(sc.Prop, mp, sc.Detail)
 	if pw != nil {
 		d.radius = pw.radius
+		// Room for the prop in every pose drawn (a mesh's contour is
+		// guessed at a tenth of its creases) and the rest of the scene.
+		lines := len(pw.edges)
+		for _, po := range pw.outlines {
+			lines += len(po.o.Creases())/10 + 64
+		}
+		poses := 1 + max(sc.OnionBefore, 0) + max(sc.OnionAfter, 0)
+		d.out.Segments = make([]Segment, 0, lines*poses+1024)
 	}
 	var frames []physics.Frame
 	if sc.Take != nil {
@@ -252,10 +260,7 @@ func bounds(sc Scene, mp *physics.MassProps, pw *propWire) r3.Box {
 			grow(r3.Add(cm, r3.Vec{X: r, Y: r, Z: r}))
 			return
 		}
-		for _, v := range pw.verts {
-			grow(r3.Add(cm, rot.MulVec(v)))
-		}
-		for _, v := range pw.hull {
+		for _, v := range pw.bound {
 			grow(r3.Add(cm, rot.MulVec(v)))
 		}
 		if sc.ShowAxes && mp != nil {
@@ -307,9 +312,12 @@ func onionAlpha(k, n int) float64 { return OnionAlpha * (1 - float64(k-1)/float6
 // use, relative to the centre of mass in prop axes, and the outlines of its
 // mesh parts, whose contours change with the view.
 type propWire struct {
-	verts    []r3.Vec
-	edges    [][2]uint32
-	hull     []r3.Vec // more points that bound the prop (mesh parts' extremes), like verts
+	verts []r3.Vec
+	edges [][2]uint32
+	// bound are the points whose box bounds the prop, like verts: the
+	// primitives' vertices and the mesh parts' extremes (their creases'
+	// vertices lie inside those).
+	bound    []r3.Vec
 	outlines []placedOutline
 	radius   float64 // largest |vertex|, m
 }
@@ -334,7 +342,7 @@ func newPropWire(p *physics.Prop, mp *physics.MassProps, detail int) *propWire {
 		pt := &p.Parts[i]
 		r := physics.Mat(physics.Normalize(pt.Orient))
 		pos := r3.Sub(pt.Position, mp.CM)
-		if o, mv := partOutline(pt); o != nil {
+		if o := partOutline(pt); o != nil {
 			// A mesh part: its creases are fixed lines, its contour is
 			// found per pose; its extremes bound it.
 			po := placedOutline{o: o, rot: r, pos: pos}
@@ -353,14 +361,12 @@ func newPropWire(p *physics.Prop, mp *physics.MassProps, detail int) *propWire {
 				pw.edges = append(pw.edges, [2]uint32{use(e[0]), use(e[1])})
 			}
 			for _, i := range o.Extremes() {
-				pw.hull = append(pw.hull, r3.Add(pos, r.MulVec(o.Vertex(i))))
+				pw.bound = append(pw.bound, r3.Add(pos, r.MulVec(o.Vertex(i))))
 			}
 			// The radius is the farthest vertex of all, not of the extremes.
 			c := r.T().MulVec(r3.Scale(-1, pos)) // the centre of mass in the mesh's frame
-			for _, v := range mv {
-				dx, dy, dz := v.X-c.X, v.Y-c.Y, v.Z-c.Z
-				pw.radius = math.Max(pw.radius, dx*dx+dy*dy+dz*dz)
-			}
+			reach := o.Reach(c)
+			pw.radius = math.Max(pw.radius, reach*reach)
 			continue
 		}
 		m := PartMesh(pt, detail)
@@ -370,7 +376,9 @@ func newPropWire(p *physics.Prop, mp *physics.MassProps, detail int) *propWire {
 				return j
 			}
 			j := uint32(len(pw.verts))
-			pw.verts = append(pw.verts, r3.Add(pos, r.MulVec(m.Vertices[i])))
+			w := r3.Add(pos, r.MulVec(m.Vertices[i]))
+			pw.verts = append(pw.verts, w)
+			pw.bound = append(pw.bound, w)
 			remap[i] = j
 			return j
 		}

@@ -53,8 +53,9 @@ func Segments(detail int) int {
 // no inner radius is a cylinder. detail is the number of segments around a
 // full circle (see Segments). A mesh part is its own triangles in the
 // file's frame (its origin is the file's, not the centre of mass), with
-// normals and edges by Surface; detail does not apply. A part with bad fields gives a mesh of its
-// (possibly meaningless) numbers, and an unknown shape an empty mesh.
+// // normals and edges by Surface; detail does not apply. A part with bad
+// fields gives a mesh of its (possibly meaningless) numbers, and an
+// unknown shape an empty mesh.
 func PartMesh(p *physics.Part, detail int) Mesh {
 	n := Segments(detail)
 	var b meshBuilder
@@ -77,6 +78,10 @@ func PartMesh(p *physics.Part, detail int) Mesh {
 		b.cone(p.Radius, p.Height, n)
 	case physics.Torus:
 		b.torus(p.Radius, p.TubeRadius, n)
+	case physics.MeshShape:
+		if p.Mesh != nil {
+			return Surface(p.Mesh.V, p.Mesh.T, CreaseAngle)
+		}
 	}
 	return b.m
 }

@@ -55,6 +55,7 @@ type Outline struct {
 	// patch's smooth edges (indices into smooth and sides) and border the
 	// smooth edges between two patches.
 	patches []patch
+	tri     [][3]int32 // the triangles in patch order
 	inner   []int32
 	border  []int32
 }
@@ -314,8 +315,10 @@ func MeshOutline(m *mesh.Mesh) *Outline {
 	return e.o
 }
 
-// partOutline returns the outline of a mesh part and the mesh's vertices,
-// or nil for a primitive.
-func partOutline(p *physics.Part) (*Outline, []r3.Vec) {
-	return nil, nil
+// partOutline returns the outline of a mesh part, or nil for a primitive.
+func partOutline(p *physics.Part) *Outline {
+	if p.Shape != physics.MeshShape || p.Mesh == nil {
+		return nil
+	}
+	return MeshOutline(p.Mesh)
 }

@@ -362,3 +362,20 @@ func TestMeshOutline_Cached(t *testing.T) {
 		t.Errorf("nil mesh: want no outline")
 	}
 }
+
+// TestOutline_Reach: the pruned search equals a scan of every vertex.
+func TestOutline_Reach(t *testing.T) {
+	v, tr := fixture.PanBowl(120, 6)
+	o := wire.NewOutline(v, tr, 0)
+	rng := rand.New(rand.NewPCG(2, 2))
+	for range 50 {
+		c := r3.Vec{X: 0.3 * rng.NormFloat64(), Y: 0.3 * rng.NormFloat64(), Z: 0.3 * rng.NormFloat64()}
+		want := 0.0
+		for _, p := range v {
+			want = math.Max(want, r3.Norm(r3.Sub(p, c)))
+		}
+		if got := o.Reach(c); got != want {
+			t.Errorf("Reach(%v) = %.17g, want %.17g", c, got, want)
+		}
+	}
+}

@@ -95,6 +95,10 @@ func (o *Outline) buildPatches(v []r3.Vec, t [][3]int32) {
 		normal[i], offset[i] = o.normal[k.f], o.offset[k.f]
 	}
 	o.normal, o.offset = normal, offset
+	o.tri = make([][3]int32, nf)
+	for i, f := range order {
+		o.tri[i] = t[f]
+	}
 
 	np := (nf + patchFaces - 1) / patchFaces
 	o.patches = make([]patch, np)
@@ -235,4 +239,32 @@ func (pa *patch) facing(view r3.Vec, ortho bool) int {
 		return allBack
 	}
 	return mixed
+}
+
+// Reach returns the largest distance of a vertex of the mesh's triangles
+// from c, m (0 for an empty mesh). It is exact: the extremes give a first
+// answer, and only the patches whose bounding sphere reaches farther than
+// that are searched vertex by vertex.
+func (o *Outline) Reach(c r3.Vec) float64 {
+	best := 0.0
+	for _, i := range o.extreme {
+		best = math.Max(best, r3.Norm(r3.Sub(o.vec[i], c)))
+	}
+	for p := range o.patches {
+		pa := &o.patches[p]
+		if pa.half >= math.Pi && pa.radius == 0 {
+			// No bounds (degenerate faces only or a degenerate patch):
+			// search it.
+		} else if r3.Norm(r3.Sub(pa.centre, c))+pa.radius <= best {
+			continue
+		}
+		for _, tr := range o.tri[p*patchFaces : min((p+1)*patchFaces, len(o.tri))] {
+			for _, j := range tr {
+				if j >= 0 && int(j) < len(o.vec) {
+					best = math.Max(best, r3.Norm(r3.Sub(o.vec[j], c)))
+				}
+			}
+		}
+	}
+	return best
 }
