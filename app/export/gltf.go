@@ -30,7 +30,7 @@ type Input struct {
 // GLTFOptions control WriteGLTF.
 type GLTFOptions struct {
 	Binary bool // GLB container (.glb) instead of JSON with an embedded buffer (.gltf)
-	Detail int  // segments around a full circle for round parts (wire.Segments); 0: wire.DefaultDetail
+	Detail int  // segments around a full circle for round primitives (wire.Segments); 0: wire.DefaultDetail; mesh parts keep their own triangles
 }
 
 // MaxKeyTurnDeg bounds (strictly) the rotation between two consecutive rotation
@@ -53,8 +53,9 @@ const (
 	generatorString = "Propflight"
 )
 
-// WriteGLTF writes the prop as one mesh (each part tessellated, metres, +Y
-// up) on one node whose translation and rotation are animated with a LINEAR
+// WriteGLTF writes the prop as one mesh (each primitive part tessellated, a
+// mesh part as its own triangles with crease-split smooth normals, see
+// wire.Surface; metres, +Y up, u32 indices) on one node whose translation and rotation are animated with a LINEAR
 // key per frame of the take (times in seconds from release), plus
 // sub-frame keys where the prop turns more than MaxKeyTurnDeg in a frame.
 // The node's origin is the prop's centre of mass, so its translation keys

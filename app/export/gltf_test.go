@@ -152,14 +152,6 @@ func validatorDir() string {
 // errors and no warnings. Outside CI it is skipped when node or the package
 // is missing; in CI (CI=true) that is a failure.
 func TestGLTF_KhronosValidator(t *testing.T) {
-	dir := validatorDir()
-	node, err := exec.LookPath("node")
-	if _, serr := os.Stat(filepath.Join(dir, "node_modules", "gltf-validator")); err != nil || serr != nil {
-		if os.Getenv("CI") == "true" {
-			t.Fatalf("the glTF validator is not installed (run npm ci in %s)", dir)
-		}
-		t.Skip("node or the gltf-validator npm package is missing; `make test` installs it")
-	}
 	for _, c := range []struct {
 		name string
 		opt  GLTFOptions
@@ -174,22 +166,40 @@ func TestGLTF_KhronosValidator(t *testing.T) {
 		if err := os.WriteFile(path, buf.Bytes(), 0o644); err != nil {
 			t.Fatal(err)
 		}
-		out, err := exec.Command(node, filepath.Join(dir, "validate.js"), path).Output()
-		if err != nil {
-			t.Fatalf("%s: validator: %v", c.name, err)
-		}
-		var rep struct {
-			Errors, Warnings, Infos, Hints int
-			Messages                       []string
-		}
-		if err := json.Unmarshal(out, &rep); err != nil {
-			t.Fatalf("%s: validator output %q: %v", c.name, out, err)
-		}
-		if rep.Errors != 0 || rep.Warnings != 0 {
-			t.Errorf("%s: %d errors, %d warnings:\n%s", c.name, rep.Errors, rep.Warnings, strings.Join(rep.Messages, "\n"))
-		}
-		t.Logf("%s: %d bytes, %d infos, %d hints %v", c.name, buf.Len(), rep.Infos, rep.Hints, rep.Messages)
+		validate(t, path)
 	}
+}
+
+// validate runs the Khronos validator on the file at path and fails on any
+// error or warning. Outside CI it skips the test when node or the package
+// is missing; in CI (CI=true) that is a failure.
+func validate(t *testing.T, path string) {
+	t.Helper()
+	dir := validatorDir()
+	node, err := exec.LookPath("node")
+	if _, serr := os.Stat(filepath.Join(dir, "node_modules", "gltf-validator")); err != nil || serr != nil {
+		if os.Getenv("CI") == "true" {
+			t.Fatalf("the glTF validator is not installed (run npm ci in %s)", dir)
+		}
+		t.Skip("node or the gltf-validator npm package is missing; `make test` installs it")
+	}
+	name := filepath.Base(path)
+	out, err := exec.Command(node, filepath.Join(dir, "validate.js"), path).Output()
+	if err != nil {
+		t.Fatalf("%s: validator: %v", name, err)
+	}
+	var rep struct {
+		Errors, Warnings, Infos, Hints int
+		Messages                       []string
+	}
+	if err := json.Unmarshal(out, &rep); err != nil {
+		t.Fatalf("%s: validator output %q: %v", name, out, err)
+	}
+	if rep.Errors != 0 || rep.Warnings != 0 {
+		t.Errorf("%s: %d errors, %d warnings:\n%s", name, rep.Errors, rep.Warnings, strings.Join(rep.Messages, "\n"))
+	}
+	st, _ := os.Stat(path)
+	t.Logf("%s: %d bytes, %d infos, %d hints %v", name, st.Size(), rep.Infos, rep.Hints, rep.Messages)
 }
 
 func TestGLTF_EmbeddedBuffer(t *testing.T) {
