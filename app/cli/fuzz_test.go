@@ -14,7 +14,7 @@ func FuzzParse(f *testing.F) {
 	for _, seed := range []string{
 		"", "check", "check\x00pan.json\x00--json", "export\x00pan.json\x00--format\x00csv\x00-o\x00out.csv",
 		"export\x00-o=-\x00--format=csv\x00--preset\x00loaf", "sheet\x00p.json\x00-o\x00s.pdf\x00--paper=a4",
-		"--\x00check", "fit\x00m.csv\x00--fps=24", "help\x00sheet", "export\x00p\x00-o\x00d\x00--format\x00png\x00--width\x00-5", "-o", "-o\x00", "--preset=", "help\x00check", "-oo\x00-o", "check\x00--\x00-", "=\x00-=\x00--=",
+		"--\x00check", "fit\x00m.csv\x00--fps=24", "help\x00sheet", "export\x00p\x00-o\x00d\x00--format\x00png\x00--width\x00-5", "-o", "-o\x00", "--preset=", "help\x00check", "plan\x00p.json\x00--land\x00least:up\x00--catch-height=1", "spread\x00p.json\x00--samples\x0010\x00--land\x001,0,0:down", "-oo\x00-o", "check\x00--\x00-", "=\x00-=\x00--=",
 	} {
 		f.Add(seed)
 	}

@@ -17,11 +17,11 @@ import (
 // where the flight ends.
 var (
 	landFlag = &Flag{Name: "--land", Value: "AXIS:DIR",
-		Help: "land the prop axis AXIS (least|middle|greatest or x,y,z in the prop frame) pointing along DIR (up|down or x,y,z in the world)"}
+		Help: "prop axis AXIS (least|middle|greatest|x,y,z) along DIR (up|down|x,y,z, world)"}
 	catchFlag = &Flag{Name: "--catch-height", Value: "Y", Kind: Number,
-		Help: "end the flight when the centre of mass comes down through height Y (m) instead of at the first ground contact"}
+		Help: "end when the centre of mass comes down through Y m, not at ground contact"}
 	toleranceFlag = &Flag{Name: "--tolerance-deg", Value: "T", Kind: Number, Default: "10",
-		Help: "largest landing error that counts, degrees (more than 0, at most 180)"}
+		Help: "largest landing error that counts, degrees (0 to 180)"}
 )
 
 // landArg is a parsed --land AXIS:DIR.

@@ -75,9 +75,9 @@ func TestParse_UsageErrors(t *testing.T) {
 		args []string
 		want string
 	}{
-		{[]string{"--json"}, "no command given (commands: open, check, export, sheet, fit, presets, version, help; see propflight --help)"},
-		{[]string{"frobnicate"}, "unknown command frobnicate (commands: open, check, export, sheet, fit, presets, version, help; see propflight --help)"},
-		{[]string{"pan.txt"}, "unknown command pan.txt (commands: open, check, export, sheet, fit, presets, version, help; see propflight --help)"},
+		{[]string{"--json"}, "no command given (commands: open, check, export, sheet, fit, plan, spread, presets, version, help; see propflight --help)"},
+		{[]string{"frobnicate"}, "unknown command frobnicate (commands: open, check, export, sheet, fit, plan, spread, presets, version, help; see propflight --help)"},
+		{[]string{"pan.txt"}, "unknown command pan.txt (commands: open, check, export, sheet, fit, plan, spread, presets, version, help; see propflight --help)"},
 		{[]string{"check", "--jsno"}, "unknown flag --jsno (did you mean --json?) (see propflight --help)"},
 		{[]string{"check", "--pre", "loaf"}, "unknown flag --pre (did you mean --preset?) (see propflight --help)"},
 		{[]string{"check", "-x"}, "unknown flag -x (see propflight --help)"},
@@ -92,8 +92,8 @@ func TestParse_UsageErrors(t *testing.T) {
 		{[]string{"check", "-"}, "check: reading FILE from standard input is not supported; give a file name"},
 		{[]string{"check", "p.json", "--format", "csv"}, "check: --format does not apply here (it goes with export)"},
 		{[]string{"check", "p.json", "-o", "x"}, "check: -o does not apply here (it goes with export or sheet)"},
-		{[]string{"export", "p.json", "--json", "-o", "x.csv"}, "export: --json does not apply here (it goes with check or fit)"},
-		{[]string{"presets", "--preset", "loaf"}, "presets: --preset does not apply here (it goes with check or export or sheet)"},
+		{[]string{"export", "p.json", "--json", "-o", "x.csv"}, "export: --json does not apply here (it goes with check or fit or plan or spread)"},
+		{[]string{"presets", "--preset", "loaf"}, "presets: --preset does not apply here (it goes with check or export or sheet or plan or spread)"},
 		{[]string{"presets", "extra"}, "presets takes no file (got extra)"},
 		{[]string{"version", "x"}, "version takes no file (got x)"},
 		{[]string{"check", "--version"}, "--version goes alone, not with check"},
@@ -103,7 +103,7 @@ func TestParse_UsageErrors(t *testing.T) {
 		{[]string{"export", "p.json", "-o", "t.csv", "--format", "obj"}, "export: --format: unknown value obj (use csv, gltf, png)"},
 		{[]string{"sheet", "p.json"}, "sheet: -o OUT.pdf is required"},
 		{[]string{"sheet", "p.json", "-o", "s.pdf", "--paper", "a3"}, "sheet: --paper: unknown value a3 (use a4, letter)"},
-		{[]string{"help", "frobnicate"}, "help: unknown command frobnicate (commands: open, check, export, sheet, fit, presets, version, help)"},
+		{[]string{"help", "frobnicate"}, "help: unknown command frobnicate (commands: open, check, export, sheet, fit, plan, spread, presets, version, help)"},
 		{[]string{"help", "check", "sheet"}, "help: one command at a time (got check and sheet)"},
 		{[]string{"open"}, "open: give the project file to open (usage: propflight open FILE.json)"},
 		{[]string{"fit"}, "fit: the marks file is missing (usage: propflight fit MARKS.csv --fps N [--gravity G] [--scale M] [--json])"},

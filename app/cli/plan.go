@@ -14,8 +14,8 @@ import (
 
 func init() {
 	register(&Spec{
-		Name: "plan", Order: 60,
-		Synopsis: "FILE --land AXIS:DIR [--catch-height Y] [--tolerance-deg T] [--rate-min A] [--rate-max B] [--json]",
+		Name: "plan", Order: 55,
+		Synopsis: "FILE --land AXIS:DIR [--catch-height Y] [--tolerance-deg T] [--json] [...]",
 		Summary:  "spin rates that land the prop as wanted",
 		About: "Search the spin rates between --rate-min and --rate-max for those that land\n" +
 			"the prop with AXIS pointing along DIR at the end of the flight (the first\n" +
@@ -92,7 +92,7 @@ func runPlan(out io.Writer, c *Command) error {
 	if err != nil {
 		return err
 	}
-	spec.Target = l.target(&sc.Mass)
+	spec.Target, spec.Thresholds = l.target(&sc.Mass), sc.Thresholds
 	plan, err := physics.PlanLanding(context.Background(), &sc.Prop, &sc.Mass, &sc.Throw, spec)
 	if err != nil {
 		return asFlagError(c, src, err)

@@ -18,7 +18,7 @@ import (
 // performer's own (footage and marks) when it matters.
 var (
 	samplesFlag = &Flag{Name: "--samples", Value: "N", Kind: Int, Default: "1000", Help: "sampled throws (1 to 1000000)"}
-	seedFlag    = &Flag{Name: "--seed", Value: "S", Default: "1", Help: "seed of the samples (a whole number >= 0); the same seed gives the same answer"}
+	seedFlag    = &Flag{Name: "--seed", Value: "S", Default: "1", Help: "seed of the samples (whole number >= 0); same seed, same answer"}
 	rateSDFlag  = &Flag{Name: "--rate-sd", Value: "PCT", Kind: Number, Default: "5", Help: "sd of the spin rate, percent of the rate"}
 	tiltSDFlag  = &Flag{Name: "--tilt-sd", Value: "DEG", Kind: Number, Default: "3", Help: "sd of the spin direction's tilt toward a random side, degrees"}
 	speedSDFlag = &Flag{Name: "--speed-sd", Value: "PCT", Kind: Number, Default: "3", Help: "sd of the release speed, percent"}
@@ -27,8 +27,8 @@ var (
 
 func init() {
 	register(&Spec{
-		Name: "spread", Order: 70,
-		Synopsis: "FILE [--samples N] [--seed S] [--rate-sd PCT] [--tilt-sd DEG] [--speed-sd PCT] [--angle-sd DEG] [--land AXIS:DIR --tolerance-deg T] [--catch-height Y] [--json]",
+		Name: "spread", Order: 56,
+		Synopsis: "FILE [--samples N] [--seed S] [--land AXIS:DIR] [--json] [...]",
 		Summary:  "sampled release errors and the landing they give",
 		About: "Throw the project's throw N times with release errors drawn at random (the\n" +
 			"spin rate, the spin direction, the release speed and angle, each normal with\n" +
@@ -124,6 +124,7 @@ func runSpread(out io.Writer, c *Command) error {
 	if err != nil {
 		return err
 	}
+	spec.Thresholds = sc.Thresholds
 	sp, err := runSpreadOn(&sceneRef{prop: &sc.Prop, mp: sc.Mass, th: &sc.Throw}, l, spec)
 	if err != nil {
 		return asFlagError(c, src, err)

@@ -68,6 +68,9 @@ type Input struct {
 	// means the scene's (the project's verdict_rules), or
 	// physics.DefaultThresholds() for a scene made without Build.
 	Thresholds *physics.Thresholds
+	// Landing, when set, adds the landing page (landing.go) after the
+	// summary: the plan's target and solutions, the spread's figures.
+	Landing *Landing
 }
 
 // Write lays out the timing sheet of in and writes the PDF to w. The PDF
@@ -159,6 +162,9 @@ func newSheet(in Input, opt Options) (*sheet, error) {
 	s.rows = s.tm.rows(opt.Twos)
 	s.poses, s.poseStep = s.tm.poseFrames(opt.Twos, maxPoses)
 	s.total = 1 + len(s.poses) + len(s.rows)
+	if in.Landing != nil {
+		s.total++
+	}
 
 	p := fpdf.NewCustom(&fpdf.InitType{OrientationStr: "P", UnitStr: "mm", SizeStr: size})
 	p.SetCatalogSort(true)
@@ -222,6 +228,11 @@ func (s *sheet) build() error {
 	}
 	if err := s.summary(); err != nil {
 		return err
+	}
+	if s.in.Landing != nil {
+		if err := s.landingPage(); err != nil {
+			return err
+		}
 	}
 	if err := s.posePage(); err != nil {
 		return err
