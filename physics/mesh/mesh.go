@@ -4,7 +4,6 @@ import (
 	"errors"
 	"fmt"
 	"math"
-	"slices"
 	"sync"
 
 	"gonum.org/v1/gonum/spatial/r3"
@@ -69,7 +68,7 @@ func New(tris [][3]r3.Vec) (*Mesh, []string, error) {
 	var notes []string
 
 	// Weld by exact position.
-	w := newWelder(3 * len(tris))
+	w := newWelder(len(tris)/2 + 8) // a closed mesh has about half as many vertices as triangles
 	idx := make([][3]int32, 0, len(tris))
 	repeated := 0
 	for i := range tris {
@@ -155,7 +154,9 @@ func checkEdges(t [][3]int32) error {
 			keys = append(keys, a<<33|b<<1|dir)
 		}
 	}
-	slices.Sort(keys)
+	if len(keys) > 0 {
+		radixSort(keys)
+	}
 	var open, third, flipped int
 	for i := 0; i < len(keys); {
 		j, back := i, 0

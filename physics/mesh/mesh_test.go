@@ -3,6 +3,7 @@ package mesh
 import (
 	"math"
 	"math/rand/v2"
+	"slices"
 	"strings"
 	"testing"
 
@@ -311,5 +312,24 @@ func TestSupport_Oracle(t *testing.T) {
 	}
 	if got := (&Mesh{}).Support(v(1, 0, 0)); !math.IsInf(got, -1) {
 		t.Errorf("empty mesh support %g, want -Inf", got)
+	}
+}
+
+// TestRadixSort against the standard library's sort (a slow, obvious oracle).
+func TestRadixSort(t *testing.T) {
+	rng := rand.New(rand.NewPCG(1, 1))
+	for _, n := range []int{1, 2, 17, 5000} {
+		for _, bitsUsed := range []uint{3, 20, 54, 64} {
+			keys := make([]uint64, n)
+			for i := range keys {
+				keys[i] = rng.Uint64() >> (64 - bitsUsed)
+			}
+			want := slices.Clone(keys)
+			slices.Sort(want)
+			radixSort(keys)
+			if !slices.Equal(keys, want) {
+				t.Fatalf("n=%d bits=%d: not sorted", n, bitsUsed)
+			}
+		}
 	}
 }

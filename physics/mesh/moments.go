@@ -63,7 +63,8 @@ func (m *Mesh) moments(surface bool) Moments {
 		s := r3.Add(a, r3.Add(b, c))
 		var w0, w1, w2 float64 // weights of the measure, first and second moments
 		if surface {
-			area := r3.Norm(r3.Cross(r3.Sub(b, a), r3.Sub(c, a))) / 2
+			n := r3.Cross(r3.Sub(b, a), r3.Sub(c, a))
+			area := math.Sqrt(n.X*n.X+n.Y*n.Y+n.Z*n.Z) / 2
 			w0, w1, w2 = area, area/3, area/12
 		} else {
 			det := r3.Dot(a, r3.Cross(b, c))

@@ -1,0 +1,210 @@
+package meshio
+
+import (
+	"errors"
+	"fmt"
+	"io"
+	"io/fs"
+	"math"
+	"os"
+	"path/filepath"
+	"strings"
+
+	"gonum.org/v1/gonum/spatial/r3"
+)
+
+// Limits on what the readers accept.
+const (
+	// MaxFileBytes is the largest mesh file read (1 GiB). A 1.2M-triangle
+	// binary STL is 60 MB.
+	MaxFileBytes = 1 << 30
+	// MaxTriangles is the most triangles read from one file.
+	MaxTriangles = 10_000_000
+)
+
+// Unit lengths in metres (NIST SP 811, Appendix B: 1 in = 0.0254 m and
+// 1 ft = 0.3048 m exactly).
+var units = map[string]float64{"m": 1, "cm": 0.01, "mm": 0.001, "in": 0.0254, "ft": 0.3048}
+
+// UnitNames lists the unit names a mesh part's "units" takes.
+func UnitNames() []string { return []string{"m", "cm", "mm", "in", "ft"} }
+
+// UnitScale returns the length of the named unit in metres.
+func UnitScale(name string) (float64, bool) {
+	s, ok := units[name]
+	return s, ok
+}
+
+// Format is a mesh file format.
+type Format int
+
+// The formats read.
+const (
+	STL Format = iota
+	OBJ
+	GLB
+	GLTF
+)
+
+// String returns the format's usual name.
+func (f Format) String() string {
+	switch f {
+	case STL:
+		return "STL"
+	case OBJ:
+		return "OBJ"
+	case GLB:
+		return "GLB"
+	case GLTF:
+		return "glTF"
+	}
+	return fmt.Sprintf("Format(%d)", int(f))
+}
+
+// Extensions lists the file name endings read, for file dialogs.
+func Extensions() []string { return []string{".stl", ".obj", ".glb", ".gltf"} }
+
+// FormatOf returns the format a file name's extension (any case) names.
+func FormatOf(name string) (Format, error) {
+	switch strings.ToLower(filepath.Ext(name)) {
+	case ".stl":
+		return STL, nil
+	case ".obj":
+		return OBJ, nil
+	case ".glb":
+		return GLB, nil
+	case ".gltf":
+		return GLTF, nil
+	}
+	return 0, fmt.Errorf("%s: not a mesh file this tool reads (use .stl, .obj, .glb or .gltf)", filepath.Base(name))
+}
+
+// Options say how to turn a file's numbers into metres in the prop's axes.
+type Options struct {
+	Units string // m (default when empty), cm, mm, in or ft
+	UpZ   bool   // the file is z up: its +z becomes +y, its +y becomes -z
+}
+
+// ReadFile reads the mesh file at path (format by extension) and returns its
+// triangles in metres, in the prop's axes, wound as the file winds them.
+// A .gltf file's buffers may be data URIs or files beside it.
+func ReadFile(path string, o Options) ([][3]r3.Vec, error) {
+	scale, ok := 1.0, true
+	if o.Units != "" {
+		scale, ok = UnitScale(o.Units)
+	}
+	if !ok {
+		return nil, fmt.Errorf("%q is not a unit (use m, cm, mm, in or ft)", o.Units)
+	}
+	f, err := FormatOf(path)
+	if err != nil {
+		return nil, err
+	}
+	if o.UpZ && (f == GLB || f == GLTF) {
+		return nil, errors.New("a glTF file is always y up: leave up out or set it to y")
+	}
+	data, err := readLimited(path)
+	if err != nil {
+		return nil, err
+	}
+	var tris [][3]r3.Vec
+	switch f {
+	case STL:
+		tris, err = ReadSTL(data)
+	case OBJ:
+		tris, err = ReadOBJ(data)
+	case GLB:
+		tris, err = ReadGLB(data)
+	case GLTF:
+		dir := filepath.Dir(path)
+		tris, err = ReadGLTF(data, func(uri string) ([]byte, error) { return sideCar(dir, uri) })
+	}
+	if err != nil {
+		return nil, fmt.Errorf("%s: %w", filepath.Base(path), err)
+	}
+	Transform(tris, scale, o.UpZ)
+	return tris, nil
+}
+
+// Transform scales tris by scale (metres per file unit) and, with upZ, turns
+// the file's +z to +y and its +y to -z, in place.
+func Transform(tris [][3]r3.Vec, scale float64, upZ bool) {
+	for i := range tris {
+		for k, p := range tris[i] {
+			if upZ {
+				p = r3.Vec{X: p.X, Y: p.Z, Z: -p.Y}
+			}
+			tris[i][k] = r3.Scale(scale, p)
+		}
+	}
+}
+
+// readLimited reads a whole file of at most MaxFileBytes.
+func readLimited(path string) ([]byte, error) {
+	f, err := os.Open(path)
+	if err != nil {
+		return nil, openError(path, err)
+	}
+	defer f.Close()
+	st, err := f.Stat()
+	if err != nil {
+		return nil, openError(path, err)
+	}
+	if st.IsDir() {
+		return nil, fmt.Errorf("%s is a folder, not a mesh file", filepath.Base(path))
+	}
+	if st.Size() > MaxFileBytes {
+		return nil, fmt.Errorf("%s is %s, more than the %s this tool reads", filepath.Base(path), byteSize(st.Size()), byteSize(MaxFileBytes))
+	}
+	// Read the size the file had when opened (no growing buffer to copy);
+	// a file that changes meanwhile is read as far as it goes.
+	data := make([]byte, st.Size())
+	n, err := io.ReadFull(f, data)
+	if err != nil && err != io.ErrUnexpectedEOF {
+		return nil, fmt.Errorf("%s: %v", filepath.Base(path), err)
+	}
+	return data[:n], nil
+}
+
+// openError says in plain words why path could not be opened.
+func openError(path string, err error) error {
+	name := filepath.Base(path)
+	switch {
+	case errors.Is(err, fs.ErrNotExist):
+		return fmt.Errorf("%s: no such file", name)
+	case errors.Is(err, fs.ErrPermission):
+		return fmt.Errorf("%s: not allowed to read it", name)
+	}
+	var pe *fs.PathError
+	if errors.As(err, &pe) {
+		return fmt.Errorf("%s: %v", name, pe.Err)
+	}
+	return fmt.Errorf("%s: %v", name, err)
+}
+
+// byteSize writes n bytes in the largest fitting unit ("1.2 MB").
+func byteSize(n int64) string {
+	const k = 1000
+	switch {
+	case n < k:
+		return fmt.Sprintf("%d bytes", n)
+	case n < k*k:
+		return fmt.Sprintf("%.3g kB", float64(n)/k)
+	case n < k*k*k:
+		return fmt.Sprintf("%.3g MB", float64(n)/(k*k))
+	}
+	return fmt.Sprintf("%.3g GB", float64(n)/(k*k*k))
+}
+
+// vec32 returns the float32 triple at b[0:12], little-endian, as a vector.
+func vec32(b []byte) r3.Vec {
+	return r3.Vec{X: f32(b[0:4]), Y: f32(b[4:8]), Z: f32(b[8:12])}
+}
+
+func f32(b []byte) float64 {
+	return float64(math.Float32frombits(uint32(b[0]) | uint32(b[1])<<8 | uint32(b[2])<<16 | uint32(b[3])<<24))
+}
+
+func tooMany(n uint64) error {
+	return fmt.Errorf("%d triangles is more than the %d this tool reads", n, MaxTriangles)
+}
