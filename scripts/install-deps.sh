@@ -2,8 +2,10 @@
 # Installs what Propflight needs on Debian/Ubuntu and is missing: the C headers
 # Fyne's cgo build needs (X11, GL), pkg-config, Xvfb for trying the window
 # without a screen, and the Khronos glTF validator (npm) that the export tests
-# run, and poppler-utils (pdfinfo, pdftotext) that the timing-sheet tests read
-# PDFs with. Idempotent: it installs nothing when all are present.
+# run, poppler-utils (pdfinfo, pdftotext) that the timing-sheet tests read
+# PDFs with, assimp-utils (an independent glTF converter the export tests run)
+# and desktop-file-utils and appstream (the package checks validate the menu
+# entry and the metainfo with them). Idempotent: it installs nothing when all are present.
 # PROPFLIGHT_NO_NPM=1 skips the validator.
 set -eu
 cd "$(dirname "$0")/.."
@@ -26,7 +28,7 @@ install_apt() { # packages...
 	echo "propflight: system packages ready"
 }
 
-pkgs="gcc libgl1-mesa-dev libx11-dev libxcursor-dev libxrandr-dev libxinerama-dev libxi-dev libxxf86vm-dev pkg-config xvfb poppler-utils"
+pkgs="gcc libgl1-mesa-dev libx11-dev libxcursor-dev libxrandr-dev libxinerama-dev libxi-dev libxxf86vm-dev pkg-config xvfb poppler-utils assimp-utils desktop-file-utils appstream"
 missing=""
 for p in $pkgs; do
 	dpkg -s "$p" >/dev/null 2>&1 || missing="$missing $p"

@@ -313,22 +313,37 @@ func buildGLTF(in Input, mesh wire.Mesh, keys []key) (*gltfDoc, []byte) {
 	doc.Meshes = []gltfMesh{{Name: "prop", Primitives: []gltfPrimitive{{
 		Attributes: map[string]int{"POSITION": aPos, "NORMAL": aNrm}, Indices: aIdx, Material: 0, Mode: modeTriangles}}}}
 
-	// Animation: times, translations, rotations (x, y, z, w).
-	var times, trans, rots []byte
+	// Animation: times, translations, rotations (x, y, z, w) and a scale
+	// of 1 on every key. The prop never scales, but a converter that keys
+	// the three channels together (assimp's COLLADA writer bakes them into
+	// one matrix per key and drops the animation when their key counts
+	// differ, reading a missing scale channel as one key) needs all three
+	// with the same keys.
+	var times, trans, rots, scales []byte
 	for _, k := range keys {
 		times = f32(times, k.t)
 		trans = f32(f32(f32(trans, k.p.X), k.p.Y), k.p.Z)
 		q := unitQuatFloat32(k.q)
 		rots = f32(f32(f32(f32(rots, q.Imag), q.Jmag), q.Kmag), q.Real)
+		scales = f32(f32(f32(scales, 1), 1), 1)
 	}
 	n := len(keys)
 	aT := accessor(gltfAccessor{BufferView: view(times, 0), ComponentType: compFloat, Count: n, Type: "SCALAR",
 		Min: []float32{float32(keys[0].t)}, Max: []float32{float32(keys[n-1].t)}})
 	aTr := accessor(gltfAccessor{BufferView: view(trans, 0), ComponentType: compFloat, Count: n, Type: "VEC3"})
 	aRo := accessor(gltfAccessor{BufferView: view(rots, 0), ComponentType: compFloat, Count: n, Type: "VEC4"})
+	aSc := accessor(gltfAccessor{BufferView: view(scales, 0), ComponentType: compFloat, Count: n, Type: "VEC3"})
 	doc.Animations = []gltfAnimation{{Name: "throw",
-		Channels: []gltfChannel{{Sampler: 0, Target: gltfTarget{Node: 0, Path: "translation"}}, {Sampler: 1, Target: gltfTarget{Node: 0, Path: "rotation"}}},
-		Samplers: []gltfSampler{{Input: aT, Output: aTr, Interpolation: "LINEAR"}, {Input: aT, Output: aRo, Interpolation: "LINEAR"}},
+		Channels: []gltfChannel{
+			{Sampler: 0, Target: gltfTarget{Node: 0, Path: "translation"}},
+			{Sampler: 1, Target: gltfTarget{Node: 0, Path: "rotation"}},
+			{Sampler: 2, Target: gltfTarget{Node: 0, Path: "scale"}},
+		},
+		Samplers: []gltfSampler{
+			{Input: aT, Output: aTr, Interpolation: "LINEAR"},
+			{Input: aT, Output: aRo, Interpolation: "LINEAR"},
+			{Input: aT, Output: aSc, Interpolation: "LINEAR"},
+		},
 	}}
 	k0 := keys[0]
 	q0 := unitQuatFloat32(k0.q)
