@@ -69,3 +69,59 @@ func TestRate_FrameSaturates(t *testing.T) {
 		}
 	}
 }
+
+// TestParseTimecode: labels read back to the frames they label, and the
+// one-hour counts of SMPTE ST 12-1: 86400 frames at 24, 108000 at 30
+// non-drop, 107892 at 29.97 drop-frame (30 x 3600 minus 2 labels in each
+// of the 54 minutes that are not a tenth).
+func TestParseTimecode(t *testing.T) {
+	r24, r2997, r5994 := Rate{Num: 24, Den: 1}, Rate{Num: 30000, Den: 1001}, Rate{Num: 60000, Den: 1001}
+	for _, c := range []struct {
+		r    Rate
+		tc   string
+		drop bool
+		want int
+	}{
+		{r24, "01:00:00:00", false, 86400},
+		{r24, "00:00:01:23", false, 47},
+		{Rate{Num: 30, Den: 1}, "01:00:00:00", false, 108000},
+		{r2997, "01:00:00;00", true, 107892},
+		{r2997, "00:01:00;02", true, 1800},
+		{r2997, "00:10:00;00", true, 17982},
+		{r2997, "01:00:00:00", false, 108000},
+		{r5994, "00:01:00;04", true, 3600},
+	} {
+		got, err := c.r.ParseTimecode(c.tc, c.drop)
+		if err != nil || got != c.want {
+			t.Errorf("%s at %s (drop %v) = %d, %v; want %d", c.tc, c.r, c.drop, got, err, c.want)
+		}
+	}
+	// Round trips over the first eleven minutes and round the hour.
+	for _, r := range []Rate{r24, r2997, r5994} {
+		for _, start := range []int{0, 107800} {
+			for n := start; n < start+11*60*60; n += 7 {
+				if got, err := r.ParseTimecode(r.Timecode(n), r.IsDropFrame()); err != nil || got != n {
+					t.Fatalf("%s: %d -> %s -> %d, %v", r, n, r.Timecode(n), got, err)
+				}
+				if got, err := r.ParseTimecode(r.TimecodeNonDrop(n), false); err != nil || got != n {
+					t.Fatalf("%s non-drop: %d -> %s -> %d, %v", r, n, r.TimecodeNonDrop(n), got, err)
+				}
+			}
+		}
+	}
+	for _, c := range []struct {
+		r    Rate
+		tc   string
+		drop bool
+	}{
+		{r2997, "00:01:00;01", true}, {r24, "00:00:00:24", false}, {r24, "00:60:00:00", false},
+		{r24, "1:00:00", false}, {r24, "aa:00:00:00", false}, {r24, "01:00:00:00", true}, {r24, "001:00:00:00", false},
+	} {
+		if _, err := c.r.ParseTimecode(c.tc, c.drop); err == nil {
+			t.Errorf("%s at %s (drop %v): no error", c.tc, c.r, c.drop)
+		}
+	}
+	if r2997.TimecodeNonDrop(1800) != "00:01:00:00" || r2997.Timecode(1800) != "00:01:00;02" {
+		t.Errorf("29.97 labels of frame 1800: %s, %s", r2997.TimecodeNonDrop(1800), r2997.Timecode(1800))
+	}
+}

@@ -19,6 +19,10 @@ var outputFlag = &Flag{Name: "--output", Aliases: []string{"-o"}, Value: "OUT", 
 // twosFlag is --twos of export and sheet.
 var twosFlag = &Flag{Name: "--twos", Help: "every other frame, each pose held two frames (on twos)"}
 
+// startFrameFlag is --start-frame of export and sheet.
+var startFrameFlag = &Flag{Name: "--start-frame", Value: "N", Kind: Int, Default: "0",
+	Help: "the number of the release frame (a shot: 1001)"}
+
 // Export formats: the values of --format.
 var formats = []string{"csv", "gltf", "png"}
 
@@ -51,6 +55,9 @@ func init() {
 			{Name: "--format", Value: "FORMAT", Choices: formats, Help: "what to write; without it the extension of OUT decides"},
 			outputFlag,
 			twosFlag,
+			startFrameFlag,
+			{Name: "--up", Value: "AXIS", Choices: []string{"y", "z"}, Default: "y",
+				Help: "csv: up axis; z writes (x, y, z) as (x, -z, y)"},
 		}, pngFlags...),
 		Check: checkExport,
 		Run:   runExport,
@@ -81,6 +88,15 @@ func checkExport(cmd *Command) error {
 	if cmd.Switch("--twos") && format == "gltf" {
 		return usagef("export: --twos goes with csv or png (glTF keys every frame so any package can re-time it)")
 	}
+	if cmd.Has("--start-frame") && format == "gltf" {
+		return usagef("export: --start-frame goes with csv or png (glTF keys are in seconds from release)")
+	}
+	if n := cmd.Int("--start-frame"); n < 0 || n > export.MaxStartFrame {
+		return usagef("export: --start-frame: must be 0 to %d, not %d", export.MaxStartFrame, n)
+	}
+	if cmd.Text("--up") == "z" && format != "csv" {
+		return usagef("export: --up z goes with csv (glTF 2.0 is y up by its specification; PNG frames are pictures)")
+	}
 	if format == "png" && out == "-" {
 		return usagef("export: a PNG sequence needs a folder: -o DIR")
 	}
@@ -105,13 +121,18 @@ func runExport(out io.Writer, cmd *Command) error {
 			return export.WriteGLTF(w, in, export.GLTFOptions{Binary: binary})
 		}, fmt.Sprintf("%d frames of %s as glTF 2.0", f.take.LandingFrame+1, printable.String(f.scene.Name)))
 	}
-	write := export.WriteCSV
+	opt := export.CSVOptions{Twos: cmd.Switch("--twos"), StartFrame: cmd.Int("--start-frame"), ZUp: cmd.Text("--up") == "z"}
 	what := fmt.Sprintf("%d frames of %s", f.take.LandingFrame+1, printable.String(f.scene.Name))
-	if cmd.Switch("--twos") {
-		write = export.WriteCSVTwos
+	if opt.Twos {
 		what = fmt.Sprintf("%d rows of %s on twos", len(export.OnTwos(f.take)), printable.String(f.scene.Name))
 	}
-	return writeOut(out, dest, func(w io.Writer) error { return write(w, f.take) }, what)
+	if opt.StartFrame != 0 {
+		what += fmt.Sprintf(" from frame %d", opt.StartFrame)
+	}
+	if opt.ZUp {
+		what += ", z up"
+	}
+	return writeOut(out, dest, func(w io.Writer) error { return export.WriteCSVWith(w, f.take, opt) }, what)
 }
 
 // writeOut writes with write to path atomically, or to out when path is
@@ -134,6 +155,7 @@ func runPNG(out io.Writer, cmd *Command, in export.Input) error {
 	opt := export.PNGOptions{
 		Width: cmd.Int("--width"), Height: cmd.Int("--height"), View: views[cmd.Text("--view")],
 		Twos: cmd.Switch("--twos"), Onion: cmd.Int("--onion"), Transparent: cmd.Switch("--transparent"),
+		StartFrame: cmd.Int("--start-frame"),
 	}
 	if err := opt.Validate(); err != nil {
 		return usagef("export: --%v", err)

@@ -24,10 +24,16 @@ func init() {
 			outputFlag,
 			{Name: "--paper", Value: "PAPER", Choices: []string{"a4", "letter"}, Default: "a4", Help: "paper size"},
 			twosFlag,
+			startFrameFlag,
+			{Name: "--start-timecode", Value: "TC", Default: "00:00:00:00", Help: "HH:MM:SS:FF of the release frame (a shot: 01:00:00:00)"},
+			{Name: "--non-drop", Help: "at 29.97 and 59.94 fps: non-drop timecode (else drop-frame, ;FF)"},
 		}, sheetLandingFlags...),
 		Check: func(c *Command) error {
 			if c.Text("--output") == "" {
 				return usagef("sheet: -o OUT.pdf is required")
+			}
+			if n := c.Int("--start-frame"); n < 0 || n > sheet.MaxStartFrame {
+				return usagef("sheet: --start-frame: must be 0 to %d, not %d", sheet.MaxStartFrame, n)
 			}
 			return checkSheetLanding(c)
 		},
@@ -45,8 +51,15 @@ func runSheet(out io.Writer, cmd *Command) error {
 	if in.Landing, err = sheetLanding(cmd, f); err != nil {
 		return err
 	}
+	opt := sheet.Options{Paper: cmd.Text("--paper"), Twos: cmd.Switch("--twos"), StartFrame: cmd.Int("--start-frame"),
+		NonDropTimecode: cmd.Switch("--non-drop")}
+	rate := f.scene.Throw.FPS
+	drop := rate.IsDropFrame() && !opt.NonDropTimecode
+	if opt.StartTimecode, err = rate.ParseTimecode(cmd.Text("--start-timecode"), drop); err != nil {
+		return usagef("sheet: --start-timecode: %v", err)
+	}
 	var buf bytes.Buffer
-	if err := sheet.Write(&buf, in, sheet.Options{Paper: cmd.Text("--paper"), Twos: cmd.Switch("--twos")}); err != nil {
+	if err := sheet.Write(&buf, in, opt); err != nil {
 		return err
 	}
 	return writeOut(out, cmd.Text("--output"), func(w io.Writer) error { _, err := w.Write(buf.Bytes()); return err },

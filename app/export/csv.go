@@ -7,6 +7,9 @@ import (
 	"math"
 	"strconv"
 
+	"gonum.org/v1/gonum/num/quat"
+	"gonum.org/v1/gonum/spatial/r3"
+
 	"propflight/physics"
 )
 
@@ -33,15 +36,69 @@ const CSVHeader = "frame,time_s,cg_x,cg_y,cg_z,qw,qx,qy,qz,wx,wy,wz,turn_deg,spa
 // 0, 1, ...) and finite, else nothing is written and an error says why. A
 // write error stops the output and is returned.
 func WriteCSV(w io.Writer, take *physics.Take) error {
+	return WriteCSVWith(w, take, CSVOptions{})
+}
+
+// MaxStartFrame is the largest CSVOptions.StartFrame and
+// PNGOptions.StartFrame (ten million frames is over four days at 24 fps).
+const MaxStartFrame = 10_000_000
+
+// CSVOptions are the pipeline conventions of WriteCSVWith.
+type CSVOptions struct {
+	// Twos writes only the frames of OnTwos (0, 2, 4, ...), with turn_deg
+	// and spacing_m since the previous row.
+	Twos bool
+	// StartFrame is the number the frame column gives the release: row n
+	// says StartFrame + n (shots often start at 1001; REFERENCES.md §13).
+	// time_s stays the seconds since release. 0 to MaxStartFrame.
+	StartFrame int
+	// ZUp writes the world z up for packages that use it: every position
+	// and angular velocity turned by (x, y, z) -> (x, -z, y), a quarter
+	// turn about x (REFERENCES.md §13), and the orientation conjugated by
+	// that turn, (qw, qx, qy, qz) -> (qw, qx, -qz, qy), so that it is the
+	// same rotation written in the z-up axes: it maps the z-up version of
+	// the prop (its model turned the same way) into the z-up world.
+	ZUp bool
+}
+
+// WriteCSVWith writes the take as WriteCSV does, under opt's conventions;
+// the header is always CSVHeader.
+func WriteCSVWith(w io.Writer, take *physics.Take, opt CSVOptions) error {
 	if err := checkTake(take); err != nil {
 		return err
 	}
+	if opt.StartFrame < 0 || opt.StartFrame > MaxStartFrame {
+		return fmt.Errorf("start-frame: must be 0 to %d, not %d", MaxStartFrame, opt.StartFrame)
+	}
+	frames := take.Frames
+	if opt.Twos {
+		frames = OnTwos(take)
+	}
 	cw := csvWriter{w: w}
 	cw.line(append(cw.buf[:0], CSVHeader...))
-	for i := range take.Frames {
-		cw.row(&take.Frames[i])
+	for _, f := range frames {
+		if opt.ZUp {
+			f = ZUpFrame(f)
+		}
+		f.N += opt.StartFrame
+		cw.row(&f)
 	}
 	return cw.err
+}
+
+// ZUpVec turns a y-up world vector into z-up axes: (x, y, z) -> (x, -z, y).
+func ZUpVec(v r3.Vec) r3.Vec { return r3.Vec{X: v.X, Y: -v.Z, Z: v.Y} }
+
+// ZUpFrame returns f written in z-up axes (see CSVOptions.ZUp): the
+// centre of mass and the angular velocity by ZUpVec, the orientation
+// conjugated by the same quarter turn c about x, c q c*, whose vector part
+// turns like any vector. Turn angles and spacings do not change.
+func ZUpFrame(f physics.Frame) physics.Frame {
+	f.CM = ZUpVec(f.CM)
+	f.Omega = ZUpVec(f.Omega)
+	q := f.Orient
+	f.Orient = quat.Number{Real: q.Real, Imag: q.Imag, Jmag: -q.Kmag, Kmag: q.Jmag}
+	return f
 }
 
 // checkTake reports why a take cannot be written.

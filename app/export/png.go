@@ -33,6 +33,10 @@ type PNGOptions struct {
 	// Twos renders one image per drawing on twos: frames 0, 2, 4, ...
 	// (each file is still named by its frame number).
 	Twos bool
+	// StartFrame is added to the frame number in each file name, so a
+	// sequence starting at 1001 drops into a shot (REFERENCES.md §13);
+	// 0 to MaxStartFrame.
+	StartFrame int
 	// Onion is the number of onion-skin frames of the take drawn on each
 	// side of the current one (0 to MaxOnion).
 	Onion int
@@ -61,12 +65,15 @@ func (o *PNGOptions) Validate() error {
 		return fmt.Errorf("view: must be front, side, top or free")
 	case o.Onion < 0 || o.Onion > MaxOnion:
 		return fmt.Errorf("onion: must be 0 to %d frames, not %d", MaxOnion, o.Onion)
+	case o.StartFrame < 0 || o.StartFrame > MaxStartFrame:
+		return fmt.Errorf("start-frame: must be 0 to %d, not %d", MaxStartFrame, o.StartFrame)
 	}
 	return nil
 }
 
 // WritePNGSequence renders the take into dir, one PNG image per frame (on
-// twos, per even frame), named NAME_0000.png by frame number with enough
+// twos, per even frame), named NAME_0000.png by frame number (plus
+// opt.StartFrame) with enough
 // zero padding for the last frame (at least four digits). NAME is
 // in.Name with every character other than letters, digits, '-', '_' and
 // '.' replaced by '_' ("take" when empty). dir is created if missing.
@@ -120,7 +127,7 @@ func WritePNGSequence(dir string, in Input, opt PNGOptions, progress func(done, 
 		step = 2
 	}
 	total := (len(frames) + step - 1) / step
-	last := frames[len(frames)-1].N
+	last := frames[len(frames)-1].N + opt.StartFrame
 	digits := max(4, len(strconv.Itoa(last)))
 	base := pngBaseName(in.Name)
 	enc := png.Encoder{CompressionLevel: png.DefaultCompression}
@@ -138,7 +145,7 @@ func WritePNGSequence(dir string, in Input, opt PNGOptions, progress func(done, 
 		sc.Frame = i
 		d := wire.Draw(cam, sc)
 		painter.Paint(img, d, pal) // fills the background first
-		name := fmt.Sprintf("%s_%0*d.png", base, digits, frames[i].N)
+		name := fmt.Sprintf("%s_%0*d.png", base, digits, frames[i].N+opt.StartFrame)
 		path := filepath.Join(dir, name)
 		if err := fsutil.WriteAtomic(path, func(w io.Writer) error { return enc.Encode(w, img) }); err != nil {
 			return paths, err

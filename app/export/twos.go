@@ -34,13 +34,5 @@ func OnTwos(take *physics.Take) []physics.Frame {
 // OnTwos: rows for frames 0, 2, 4, ..., with turn_deg and spacing_m since
 // the previous row.
 func WriteCSVTwos(w io.Writer, take *physics.Take) error {
-	if err := checkTake(take); err != nil {
-		return err
-	}
-	cw := csvWriter{w: w}
-	cw.line(append(cw.buf[:0], CSVHeader...))
-	for _, f := range OnTwos(take) {
-		cw.row(&f)
-	}
-	return cw.err
+	return WriteCSVWith(w, take, CSVOptions{Twos: true})
 }

@@ -185,7 +185,7 @@ func (s *sheet) chart(x, y, w, h float64) {
 			}
 		}
 		placed = append(placed, [2]float64{lx, ly})
-		centred(p, lx, ly, itoa(fr[i].N))
+		centred(p, lx, ly, s.frameNo(fr[i].N))
 	}
 	// The apex has its own label; reserve its place.
 	if tk.ApexTime > 0 {
@@ -211,7 +211,7 @@ func (s *sheet) chart(x, y, w, h float64) {
 		p.Circle(ax, ay, 0.9, "D")
 		s.font("B", chartFont+0.6)
 		ink(p, inkMark)
-		txt := "apex · frame " + itoa(tk.ApexFrame)
+		txt := "apex · frame " + s.frameNo(tk.ApexFrame)
 		lx := math.Min(math.Max(ax, px0+p.GetStringWidth(txt)/2+1), px0+pw-p.GetStringWidth(txt)/2-1)
 		ly := math.Max(ay-tickHalfKey-6.2, py0+2)
 		rule(p, ax, ay-1.2, ax, ly+1.3, 0.15, inkMark)
@@ -222,7 +222,7 @@ func (s *sheet) chart(x, y, w, h float64) {
 	p.Circle(lx, ly, 0.8, "F")
 	s.font("B", chartFont+0.6)
 	ink(p, inkMark)
-	txt := "contact " + fixed(tk.FlightTime, 3) + " s · landing frame " + itoa(tk.LandingFrame)
+	txt := "contact " + fixed(tk.FlightTime, 3) + " s · landing frame " + s.frameNo(tk.LandingFrame)
 	tw := p.GetStringWidth(txt)
 	tx := lx + 2.5
 	if tx+tw > px0+pw-1 {

@@ -127,7 +127,7 @@ func (s *sheet) poseCell(x, y, w, h float64, f int, radius float64, view wire.Vi
 	s.font("B", 8)
 	ink(p, inkText)
 	p.SetXY(x+0.5, y+0.4)
-	p.CellFormat(w-1, 3.6, "frame "+itoa(fr.N), "", 0, "L", false, 0, "")
+	p.CellFormat(w-1, 3.6, "frame "+s.frameNo(fr.N), "", 0, "L", false, 0, "")
 	s.font("", 5.8)
 	ink(p, inkSoft)
 	p.SetXY(x+0.5, y+3.7)

@@ -31,6 +31,10 @@ var ErrCancelled = errors.New("sheet: cancelled")
 // every sheet, so that equal input gives byte-equal files.
 var creationDate = time.Date(2025, 1, 1, 0, 0, 0, 0, time.UTC)
 
+// MaxStartFrame is the largest Options.StartFrame and StartTimecode (ten
+// million frames is over four days at 24 fps).
+const MaxStartFrame = 10_000_000
+
 // Paper sizes Write accepts in Options.Paper.
 const (
 	PaperA4     = "a4"     // 210 x 297 mm (ISO 216), the default
@@ -50,6 +54,17 @@ type Options struct {
 	// Cancel, when not nil, stops Write with ErrCancelled soon after it is
 	// closed (it is checked before every step).
 	Cancel <-chan struct{}
+	// StartFrame is the number printed for the release frame; frame n of
+	// the take is printed StartFrame + n everywhere on the sheet (shots
+	// often start at 1001; REFERENCES.md §13). 0 to MaxStartFrame.
+	StartFrame int
+	// StartTimecode is the release's timecode as a count of labels at the
+	// take's rate (physics.Rate.ParseTimecode of "01:00:00:00", say);
+	// frame n gets the label of StartTimecode + n. 0 is 00:00:00:00.
+	StartTimecode int
+	// NonDropTimecode counts the timecode non-drop at 30000/1001 and
+	// 60000/1001 fps, where it is drop-frame (HH:MM:SS;FF) by default.
+	NonDropTimecode bool
 	// PoseView is where the pose drawings look from; the zero value is
 	// wire.Front (x right, y up: the same axes as the arc chart). Free
 	// gives wire.NewCamera's three-quarter perspective view.
@@ -139,6 +154,12 @@ func newSheet(in Input, opt Options) (*sheet, error) {
 		size = "Letter"
 	default:
 		return nil, fmt.Errorf("paper: must be %q or %q, not %q", PaperA4, PaperLetter, opt.Paper)
+	}
+	if opt.StartFrame < 0 || opt.StartFrame > MaxStartFrame {
+		return nil, fmt.Errorf("start-frame: must be 0 to %d, not %d", MaxStartFrame, opt.StartFrame)
+	}
+	if opt.StartTimecode < 0 || opt.StartTimecode > MaxStartFrame {
+		return nil, fmt.Errorf("start-timecode: must be 00:00:00:00 or later and under a hundred hours")
 	}
 	if opt.PoseView < wire.Front || opt.PoseView > wire.Free {
 		return nil, fmt.Errorf("pose view: must be front, side, top or free, not %v", opt.PoseView)
@@ -280,7 +301,7 @@ func (s *sheet) footer() {
 	s.font("", 7)
 	ink(p, inkSoft)
 	p.SetXY(margin, top+1.2)
-	p.CellFormat(s.width()*0.7, 3.6, s.name+" · frames 0–"+itoa(len(s.tk.Frames)-1)+" at "+s.sc.Throw.FPS.String()+" fps", "", 0, "L", false, 0, "")
+	p.CellFormat(s.width()*0.7, 3.6, s.name+" · frames "+s.frameNo(0)+"–"+s.frameNo(len(s.tk.Frames)-1)+" at "+s.sc.Throw.FPS.String()+" fps", "", 0, "L", false, 0, "")
 	s.font("B", 7)
 	p.SetXY(margin+s.width()*0.7, top+1.2)
 	p.CellFormat(s.width()*0.3, 3.6, "page "+itoa(p.PageNo())+" of "+nbAlias, "", 0, "R", false, 0, "")

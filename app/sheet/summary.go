@@ -35,7 +35,7 @@ func (s *sheet) summary() error {
 	ink(p, inkSoft)
 	p.SetXY(x, y)
 	sub := "Timing sheet · " + s.sc.Throw.FPS.String() + " fps · " + plural(len(s.tk.Frames), "frame") +
-		" (0–" + itoa(len(s.tk.Frames)-1) + ") · " + fixed(s.tk.FlightTime, 3) + " s flight · table " + s.onesOrTwos()
+		" (" + s.frameNo(0) + "–" + s.frameNo(len(s.tk.Frames)-1) + ", timecode from " + s.timecode(0) + ") · " + fixed(s.tk.FlightTime, 3) + " s flight · table " + s.onesOrTwos()
 	p.CellFormat(w, 4.5, sub, "", 0, "L", false, 0, "")
 	y += 7
 

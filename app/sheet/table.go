@@ -1,6 +1,10 @@
 package sheet
 
-import "math"
+import (
+	"math"
+
+	"propflight/physics"
+)
 
 // Frame table layout.
 const (
@@ -40,8 +44,8 @@ func (s *sheet) cells(r *row) []string {
 		spacing, turn = "—", "—"
 	}
 	return []string{
-		itoa(r.frame),
-		s.sc.Throw.FPS.Timecode(r.frame),
+		s.frameNo(r.frame),
+		s.timecode(r.frame),
 		fixed(r.cm.X, DecimalsMetres),
 		fixed(r.cm.Y, DecimalsMetres),
 		fixed(r.cm.Z, DecimalsMetres),
@@ -52,15 +56,58 @@ func (s *sheet) cells(r *row) []string {
 	}
 }
 
+// frameNo is frame n of the take as the sheet prints it: n plus the
+// start frame.
+func (s *sheet) frameNo(n int) string { return itoa(n + s.opt.StartFrame) }
+
+// dropFrame reports whether the sheet's timecode is drop-frame.
+func (s *sheet) dropFrame() bool { return s.sc.Throw.FPS.IsDropFrame() && !s.opt.NonDropTimecode }
+
+// timecode is the label of frame n of the take: the start timecode plus n,
+// drop-frame or not.
+func (s *sheet) timecode(n int) string {
+	if s.dropFrame() {
+		return s.sc.Throw.FPS.Timecode(s.opt.StartTimecode + n)
+	}
+	return s.sc.Throw.FPS.TimecodeNonDrop(s.opt.StartTimecode + n)
+}
+
+// timecodeUnit is the timecode column's unit line: HH:MM:SS;FF for
+// drop-frame (SMPTE ST 12-1's separator), HH:MM:SS:FF otherwise.
+func (s *sheet) timecodeUnit() string {
+	if s.dropFrame() {
+		return "HH:MM:SS;FF DF"
+	}
+	if s.sc.Throw.FPS.IsDropFrame() {
+		return "HH:MM:SS:FF NDF"
+	}
+	return "HH:MM:SS:FF"
+}
+
+// dropExtra names the further labels 59.94 drop-frame skips.
+func dropExtra(r physics.Rate) string {
+	if r.Num == 60000 {
+		return " (;00 to ;03 at 59.94)"
+	}
+	return ""
+}
+
 // notes returns the table's footnotes.
 func (s *sheet) notes() []string {
 	n := []string{
-		"Keys: release (frame 0), apex (the frame nearest the top of the centre-of-mass arc) and landing (the last frame before first ground contact). " +
+		"Keys: release (frame " + s.frameNo(0) + "), apex (the frame nearest the top of the centre-of-mass arc) and landing (the last frame before first ground contact). " +
 			"Breakdowns: the frame halfway between two consecutive keys a and b, (a + b) / 2 rounded down; none where the keys are less than two frames apart.",
 		"Marks: 90°, 180°, ... where the total turn (the sum of the turns from frame to frame) reaches a multiple of a quarter turn; flip k where a tumble's middle axis reverses " +
 			"(first flip + (k − 1) × flip period, on the first frame at or after it); onset where a spin near the middle axis starts to grow (the verdict's onset time, same rule).",
 		"Spacing is the straight distance the centre of mass moves since the previous row, turn the angle the prop turns along its motion since then (more than 180° for a fast spin). " +
 			"Values are the take's, rounded: metres to 4 decimals, turn to 2, total turn to 1.",
+	}
+	switch {
+	case s.dropFrame():
+		n = append(n, "Timecode: drop-frame (DF, SMPTE ST 12-1): labels ;00 and ;01"+dropExtra(s.sc.Throw.FPS)+" are skipped at the start of every minute but each tenth, "+
+			"so the labels keep to the clock; no frames are dropped.")
+	case s.sc.Throw.FPS.IsDropFrame():
+		n = append(n, "Timecode: non-drop (NDF): every label is counted at "+itoa(int(math.Round(s.fps())))+" a second, so the labels run 3.6 s an hour behind the clock.")
 	}
 	if s.opt.Twos {
 		n = append(n, "On twos: every other frame is listed and each drawing holds for two frames; the marks of a held frame join the row before it with (at N), "+
@@ -143,11 +190,15 @@ func (s *sheet) heads(x, y, w float64) float64 {
 		}
 		p.SetXY(cx+pad, y+0.6)
 		p.CellFormat(cw, 3.4, c.head, "", 0, c.align, false, 0, "")
-		if c.unit != "" {
+		unit := c.unit
+		if c.head == "timecode" {
+			unit = s.timecodeUnit()
+		}
+		if unit != "" {
 			s.font("", sizeUnit)
 			ink(p, inkSoft)
 			p.SetXY(cx, y+4.1)
-			p.CellFormat(cw, 3, fitText(p, c.unit, cw-1.6), "", 0, c.align, false, 0, "")
+			p.CellFormat(cw, 3, fitText(p, unit, cw-1.6), "", 0, c.align, false, 0, "")
 		}
 		cx += cw
 	}

@@ -71,7 +71,7 @@ func (s *sheet) fps() float64 { return s.sc.Throw.FPS.FPS() }
 // after t), noting a frame past the take's last.
 func (s *sheet) atFrame(t float64) string {
 	f := s.sc.Throw.FPS.FrameAtOrAfter(t)
-	out := sig(t, 3) + " s, frame " + itoa(f)
+	out := sig(t, 3) + " s, frame " + s.frameNo(f)
 	if f > len(s.tk.Frames)-1 {
 		out += " (after landing)"
 	}
@@ -124,14 +124,14 @@ func (s *sheet) verdictItems() []item {
 		items = append(items, item{"onset", s.atFrame(v.Onset) + "; growth " + sig(v.GrowthRate, 3) + " /s"})
 	}
 	items = append(items,
-		item{"flight", plural(len(tk.Frames), "frame") + " (0–" + itoa(last) + "), " + fixed(tk.FlightTime, 3) + " s to contact"})
+		item{"flight", plural(len(tk.Frames), "frame") + " (" + s.frameNo(0) + "–" + s.frameNo(last) + "), " + fixed(tk.FlightTime, 3) + " s to contact"})
 	if tk.ApexTime > 0 {
-		items = append(items, item{"apex", "frame " + itoa(tk.ApexFrame) + " (top at " + fixed(tk.ApexTime, 3) + " s, centre of mass y " + fixed(th.CMAt(tk.ApexTime).Y, 3) + " m)"})
+		items = append(items, item{"apex", "frame " + s.frameNo(tk.ApexFrame) + " (top at " + fixed(tk.ApexTime, 3) + " s, centre of mass y " + fixed(th.CMAt(tk.ApexTime).Y, 3) + " m)"})
 	} else {
-		items = append(items, item{"apex", "frame 0: the throw starts level or downward"})
+		items = append(items, item{"apex", "frame " + s.frameNo(0) + ": the throw starts level or downward"})
 	}
 	items = append(items,
-		item{"landing", "frame " + itoa(tk.LandingFrame) + " (first contact at " + fixed(tk.FlightTime, 3) + " s = frame " + fixed(tk.FlightTime*s.fps(), 2) + ")"},
+		item{"landing", "frame " + s.frameNo(tk.LandingFrame) + " (first contact at " + fixed(tk.FlightTime, 3) + " s = frame " + fixed(float64(s.opt.StartFrame)+tk.FlightTime*s.fps(), 2) + ")"},
 		item{"rules", "symmetry within " + sig(100*s.thr.SymmetryTol, 3) + " %, tumble at " + sig(s.thr.TumbleDeg, 3) + "° or more, wobble " +
 			sig(s.thr.WobbleMinDeg, 3) + "° to " + sig(90-s.thr.WobbleMinDeg, 3) + "°"},
 	)
