@@ -91,6 +91,12 @@ func (m *AxisMapper) Class(dir r3.Vec) (Motion, Axis, float64) {
 	if !ok {
 		return Spinning, Greatest, 0
 	}
+	return m.ClassPrincipal(w)
+}
+
+// ClassPrincipal is Class for a unit direction w already in principal
+// coordinates (w.X along the least axis, w.Z along the greatest).
+func (m *AxisMapper) ClassPrincipal(w r3.Vec) (Motion, Axis, float64) {
 	I := m.moments
 	l := r3.Vec{X: I[0] * w.X, Y: I[1] * w.Y, Z: I[2] * w.Z}
 	switch m.sym {
