@@ -168,7 +168,7 @@ func DescribeDirection(d physics.DirectionVerdict) string {
 		what += fmt.Sprintf("; spin : wobble 1 : %.3g", d.WobblesPerTurn)
 	}
 	a := d.Axis
-	return what + fmt.Sprintf("\nspin axis (%.2f, %.2f, %.2f) in the prop frame: click to throw it so", a.X, a.Y, a.Z)
+	return what + fmt.Sprintf("\naxis (%.2f, %.2f, %.2f), prop frame: click to spin the throw so", a.X, a.Y, a.Z)
 }
 
 // MouseIn shows the verdict under the pointer.

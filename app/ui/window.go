@@ -51,6 +51,7 @@ type Window struct {
 	props    *propPanel
 	throw    *throwPanel
 	verdict  *verdictPanel
+	axisMap  *axisMapPane
 	view     *previewPane
 	timeline *timelinePane
 	footage  *footagePane
@@ -207,6 +208,7 @@ func (w *Window) build() {
 	w.props = newPropPanel(w)
 	w.throw = newThrowPanel(w)
 	w.verdict = newVerdictPanel(w)
+	w.axisMap = newAxisMapPane(w)
 	w.view = newPreviewPane(w)
 	w.timeline = newTimelinePane(w)
 	w.footage = newFootagePane(w)
@@ -219,7 +221,9 @@ func (w *Window) build() {
 		container.NewTabItem("Footage", scrollColumn(w.footage.content)),
 	)
 	left := sized(tabs, 430, 300)
-	right := sized(scrollColumn(w.verdict.content), 360, 300)
+	verdictAndMap := container.NewVSplit(scrollColumn(w.verdict.content), w.axisMap.content)
+	verdictAndMap.SetOffset(0.55)
+	right := sized(verdictAndMap, 360, 300)
 	// The toolbar scrolls sideways rather than widen the window when the
 	// window is narrow.
 	bar := container.NewHScroll(w.view.toolbar)
@@ -319,6 +323,7 @@ func (w *Window) apply(res editor.Result) {
 		}
 	}
 	w.verdict.show(res, w.editErr)
+	w.axisMap.show(res)
 }
 
 // lastFrame returns the last frame of the shown take (0 with none).

@@ -18,11 +18,27 @@ const (
 )
 
 // Title is the view's caption.
-func (v View) Title() string {
+func (v View) Title() string { return v.titles()[0] }
+
+// titles returns the view's captions, longest first.
+func (v View) titles() []string {
 	if v == DownLeast {
-		return "seen down the least axis"
+		return []string{"seen down the least axis", "down the least axis", "least axis"}
 	}
-	return "seen down the greatest axis"
+	return []string{"seen down the greatest axis", "down the greatest axis", "greatest axis"}
+}
+
+// TitleFor returns the caption of view v in layout l: the longest form
+// whose captions of both views fit over their discs.
+func (l Layout) TitleFor(v View) string {
+	room := int(2*l.R + (float64(l.W)-4*l.R)/3 - float64(4*l.Scale))
+	g, s := DownGreatest.titles(), DownLeast.titles()
+	for i := range g {
+		if textWidth(g[i], l.Scale) <= room && textWidth(s[i], l.Scale) <= room {
+			return v.titles()[i]
+		}
+	}
+	return v.titles()[len(g)-1]
 }
 
 // basis returns the view's screen right, screen up and toward-the-viewer

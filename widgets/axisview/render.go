@@ -58,7 +58,7 @@ func Render(m *physics.AxisMapper, w, h int, opt Options) *image.RGBA {
 	drawRims(img, l, pal.Rim)
 	drawAxes(img, l, m, &pal)
 	for _, v := range []View{DownGreatest, DownLeast} {
-		t := v.Title()
+		t := l.TitleFor(v)
 		c := l.Centre[v]
 		drawText(img, t, int(c[0])-textWidth(t, l.Scale)/2, l.TitleY, pal.Text, color.NRGBA{}, l.Scale)
 	}
