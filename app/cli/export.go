@@ -1,20 +1,25 @@
 package cli
 
 import (
+	"errors"
 	"fmt"
 	"io"
-	"propflight/internal/printable"
+	"io/fs"
 	"slices"
 	"strconv"
 	"strings"
 
 	"propflight/app/export"
 	"propflight/app/fsutil"
+	"propflight/internal/printable"
 	"propflight/widgets/wire"
 )
 
 // outputFlag is -o of export and sheet.
 var outputFlag = &Flag{Name: "--output", Aliases: []string{"-o"}, Value: "OUT", Help: `where to write; "-" is standard output`}
+
+// forceFlag is --force of the commands that write files.
+var forceFlag = &Flag{Name: "--force", Help: "replace an output file even if it is read-only"}
 
 // twosFlag is --twos of export and sheet.
 var twosFlag = &Flag{Name: "--twos", Help: "every other frame, each pose held two frames (on twos)"}
@@ -54,6 +59,7 @@ func init() {
 			presetFlag,
 			{Name: "--format", Value: "FORMAT", Choices: formats, Help: "what to write; without it the extension of OUT decides"},
 			outputFlag,
+			forceFlag,
 			twosFlag,
 			startFrameFlag,
 			{Name: "--up", Value: "AXIS", Choices: []string{"y", "z"}, Default: "y",
@@ -117,7 +123,7 @@ func runExport(out io.Writer, cmd *Command) error {
 		return runPNG(out, cmd, in)
 	case "gltf":
 		binary := !strings.EqualFold(extension(dest), ".gltf")
-		return writeOut(out, dest, func(w io.Writer) error {
+		return writeOut(out, cmd, dest, func(w io.Writer) error {
 			return export.WriteGLTF(w, in, export.GLTFOptions{Binary: binary})
 		}, fmt.Sprintf("%d frames of %s as glTF 2.0", f.take.LandingFrame+1, printable.String(f.scene.Name)))
 	}
@@ -132,20 +138,36 @@ func runExport(out io.Writer, cmd *Command) error {
 	if opt.ZUp {
 		what += ", z up"
 	}
-	return writeOut(out, dest, func(w io.Writer) error { return export.WriteCSVWith(w, f.take, opt) }, what)
+	return writeOut(out, cmd, dest, func(w io.Writer) error { return export.WriteCSVWith(w, f.take, opt) }, what)
 }
 
 // writeOut writes with write to path atomically, or to out when path is
-// "-", and then reports what it wrote.
-func writeOut(out io.Writer, path string, write func(io.Writer) error, what string) error {
+// "-", and then reports what it wrote. A read-only file is replaced only
+// with --force; a symbolic link stays a link to the file it names.
+func writeOut(out io.Writer, cmd *Command, path string, write func(io.Writer) error, what string) error {
 	if path == "-" {
 		return write(out)
 	}
-	if err := fsutil.WriteAtomic(path, write); err != nil {
-		return fmt.Errorf("%s: cannot write: %w", path, err)
+	if err := fsutil.WriteFile(path, fsutil.Options{ReplaceReadOnly: cmd.Switch("--force")}, write); err != nil {
+		return writeError(path, err)
 	}
 	fmt.Fprintf(out, "wrote %s: %s\n", printable.String(path), what)
 	return nil
+}
+
+// writeError describes a failure to write the output path: a read-only
+// file is the user's to decide on (exit 2, with the way out); other
+// failures keep their cause. The message names the output, never a
+// temporary file.
+func writeError(path string, err error) error {
+	if errors.Is(err, fsutil.ErrReadOnly) {
+		return usagef("%s: the file is read-only; give --force to replace it", path)
+	}
+	var pe *fs.PathError
+	if errors.As(err, &pe) && pe.Path == path {
+		err = pe.Err
+	}
+	return fmt.Errorf("%s: cannot write: %w", path, err)
 }
 
 // views maps --view's values to cameras.
@@ -156,6 +178,7 @@ func runPNG(out io.Writer, cmd *Command, in export.Input) error {
 		Width: cmd.Int("--width"), Height: cmd.Int("--height"), View: views[cmd.Text("--view")],
 		Twos: cmd.Switch("--twos"), Onion: cmd.Int("--onion"), Transparent: cmd.Switch("--transparent"),
 		StartFrame: cmd.Int("--start-frame"),
+		ReplaceReadOnly: cmd.Switch("--force"),
 	}
 	if err := opt.Validate(); err != nil {
 		return usagef("export: --%v", err)
@@ -163,6 +186,10 @@ func runPNG(out io.Writer, cmd *Command, in export.Input) error {
 	dir := cmd.Text("--output")
 	files, err := export.WritePNGSequence(dir, in, opt, nil)
 	if err != nil {
+		var pe *fs.PathError
+		if errors.As(err, &pe) {
+			return writeError(pe.Path, err)
+		}
 		return fmt.Errorf("%s: %w", dir, err)
 	}
 	fmt.Fprintf(out, "wrote %d images of %s into %s (%dx%d, %s view)\n", len(files), printable.String(in.Name), printable.String(dir), opt.Width, opt.Height, opt.View)

@@ -3,10 +3,10 @@ package cli
 import (
 	"fmt"
 	"io"
-	"propflight/internal/printable"
 
 	"propflight/app/project"
 	"propflight/assets"
+	"propflight/internal/printable"
 )
 
 func init() {

@@ -5,7 +5,6 @@ import (
 	"errors"
 	"fmt"
 	"io"
-	"propflight/internal/printable"
 	"runtime"
 	"runtime/debug"
 	"strings"
@@ -13,6 +12,7 @@ import (
 	"propflight/app/footage"
 	"propflight/app/project"
 	"propflight/assets"
+	"propflight/internal/printable"
 	"propflight/physics"
 )
 

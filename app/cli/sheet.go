@@ -4,9 +4,9 @@ import (
 	"bytes"
 	"fmt"
 	"io"
-	"propflight/internal/printable"
 
 	"propflight/app/sheet"
+	"propflight/internal/printable"
 )
 
 func init() {
@@ -22,6 +22,7 @@ func init() {
 		Flags: append([]*Flag{
 			presetFlag,
 			outputFlag,
+			forceFlag,
 			{Name: "--paper", Value: "PAPER", Choices: []string{"a4", "letter"}, Default: "a4", Help: "paper size"},
 			twosFlag,
 			startFrameFlag,
@@ -62,6 +63,6 @@ func runSheet(out io.Writer, cmd *Command) error {
 	if err := sheet.Write(&buf, in, opt); err != nil {
 		return err
 	}
-	return writeOut(out, cmd.Text("--output"), func(w io.Writer) error { _, err := w.Write(buf.Bytes()); return err },
+	return writeOut(out, cmd, cmd.Text("--output"), func(w io.Writer) error { _, err := w.Write(buf.Bytes()); return err },
 		fmt.Sprintf("timing sheet of %s, %d frames", printable.String(f.scene.Name), f.take.LandingFrame+1))
 }

@@ -6,6 +6,7 @@ import (
 	"os"
 	"path/filepath"
 
+	"propflight/app/fsutil"
 	"propflight/app/project"
 )
 
@@ -149,7 +150,12 @@ func (e *Editor) travel(from, to *[]snapshot) bool {
 // the save, not an undo step: it is applied to the undo and redo states
 // too, so that Undo after the save still names the same footage. An
 // absolute path of a project that had a file is kept as written.
-func (e *Editor) Save(path string) error {
+func (e *Editor) Save(path string) error { return e.SaveWith(path, fsutil.Options{}) }
+
+// SaveWith is Save with the write options opt: ReplaceReadOnly once the
+// user agreed to replace a read-only file (Save refuses one with an error
+// wrapping fsutil.ErrReadOnly).
+func (e *Editor) SaveWith(path string, opt fsutil.Options) error {
 	if path == "" {
 		return errors.New("save: no file name")
 	}
@@ -157,7 +163,7 @@ func (e *Editor) Save(path string) error {
 	doc.File = path
 	rebase := footageRebase(e.path, path)
 	rebase(doc)
-	if err := project.Save(path, doc); err != nil {
+	if err := project.SaveWith(path, doc, opt); err != nil {
 		return err
 	}
 	data, err := project.Marshal(doc)

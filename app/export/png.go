@@ -52,7 +52,16 @@ type PNGOptions struct {
 	// the ground grid; without it only the prop (and its onion skin) is
 	// drawn.
 	Guides bool
+	// ReplaceReadOnly replaces frame files that are read-only; without it
+	// such a file stops the sequence with an error wrapping
+	// fsutil.ErrReadOnly (see fsutil.Options).
+	ReplaceReadOnly bool
 }
+
+// maxPNGStem bounds the file-name stem taken from the take's name, bytes:
+// with "_", the frame number and ".png" the name stays far under the 255
+// bytes file systems allow, and so does the temporary file's.
+const maxPNGStem = 100
 
 // Validate reports the first bad option, naming its field.
 func (o *PNGOptions) Validate() error {
@@ -76,7 +85,9 @@ func (o *PNGOptions) Validate() error {
 // opt.StartFrame) with enough
 // zero padding for the last frame (at least four digits). NAME is
 // in.Name with every character other than letters, digits, '-', '_' and
-// '.' replaced by '_' ("take" when empty). dir is created if missing.
+// '.' replaced by '_' ("take" when empty), shortened to 100 bytes
+// (fsutil.ShortName) when longer. dir is created if missing; temporary
+// files that a killed export of the same name left in it are removed.
 //
 // The camera is framed once on the whole take (wire.Bounds and
 // Camera.Frame), so the prop stays in view and at one scale across the
@@ -130,6 +141,10 @@ func WritePNGSequence(dir string, in Input, opt PNGOptions, progress func(done, 
 	last := frames[len(frames)-1].N + opt.StartFrame
 	digits := max(4, len(strconv.Itoa(last)))
 	base := pngBaseName(in.Name)
+	fsutil.RemoveStale(dir, func(name string) bool {
+		return strings.HasPrefix(name, base+"_") && strings.HasSuffix(name, ".png")
+	})
+	wopt := fsutil.Options{ReplaceReadOnly: opt.ReplaceReadOnly, KeepStale: true}
 	enc := png.Encoder{CompressionLevel: png.DefaultCompression}
 	var painter wire.Painter
 	img := image.NewRGBA(image.Rect(0, 0, opt.Width, opt.Height)) // reused: each file is encoded before the next frame
@@ -147,7 +162,7 @@ func WritePNGSequence(dir string, in Input, opt PNGOptions, progress func(done, 
 		painter.Paint(img, d, pal) // fills the background first
 		name := fmt.Sprintf("%s_%0*d.png", base, digits, frames[i].N+opt.StartFrame)
 		path := filepath.Join(dir, name)
-		if err := fsutil.WriteAtomic(path, func(w io.Writer) error { return enc.Encode(w, img) }); err != nil {
+		if err := fsutil.WriteFile(path, wopt, func(w io.Writer) error { return enc.Encode(w, img) }); err != nil {
 			return paths, err
 		}
 		paths = append(paths, path)
@@ -173,5 +188,5 @@ func pngBaseName(name string) string {
 	if s == "" {
 		return "take"
 	}
-	return s
+	return fsutil.ShortName(s, maxPNGStem)
 }

@@ -51,13 +51,19 @@ func Marshal(d *Document) ([]byte, error) {
 }
 
 // Save writes the document to path atomically (fsutil.WriteAtomic): the
-// old file stays whole until the new one is complete on disk.
-func Save(path string, d *Document) error {
+// old file stays whole until the new one is complete on disk. A symbolic
+// link stays a link to the file it names; a read-only file is refused
+// (the error wraps fsutil.ErrReadOnly).
+func Save(path string, d *Document) error { return SaveWith(path, d, fsutil.Options{}) }
+
+// SaveWith is Save with the write options opt (such as replacing a
+// read-only file after the user agreed).
+func SaveWith(path string, d *Document, opt fsutil.Options) error {
 	data, err := Marshal(d)
 	if err != nil {
 		return err
 	}
-	return fsutil.WriteAtomic(path, func(w io.Writer) error {
+	return fsutil.WriteFile(path, opt, func(w io.Writer) error {
 		_, err := w.Write(data)
 		return err
 	})

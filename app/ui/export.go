@@ -5,6 +5,7 @@ import (
 	"errors"
 	"fmt"
 	"io"
+	"io/fs"
 	"path/filepath"
 	"strings"
 
@@ -42,6 +43,13 @@ type exportJob struct {
 type exportSettings struct {
 	twos bool      // the take is timed on twos
 	view wire.View // the preview's view, for PNG frames
+	// replaceReadOnly: the user agreed to replace a read-only file.
+	replaceReadOnly bool
+}
+
+// write returns the file-writing options of the settings.
+func (s exportSettings) write() fsutil.Options {
+	return fsutil.Options{ReplaceReadOnly: s.replaceReadOnly}
 }
 
 // exportSettings reads the settings an export uses from the controls.
@@ -79,7 +87,7 @@ func sheetJob(paper string) exportJob {
 			if err != nil {
 				return "", err
 			}
-			return "timing sheet", writeBytes(path, buf.Bytes())
+			return "timing sheet", writeBytes(path, set.write(), buf.Bytes())
 		}}
 }
 
@@ -90,15 +98,15 @@ func csvJob() exportJob {
 			if set.twos {
 				write = export.WriteCSVTwos
 			}
-			return "CSV take", fsutil.WriteAtomic(path, func(f io.Writer) error { return write(f, res.Take) })
+			return "CSV take", fsutil.WriteFile(path, set.write(), func(f io.Writer) error { return write(f, res.Take) })
 		}}
 }
 
 func gltfJob() exportJob {
 	return exportJob{title: "Take as glTF (GLB)", ext: ".glb",
-		work: func(path string, res editor.Result, _ exportSettings, _ func(int, int), _ <-chan struct{}) (string, error) {
+		work: func(path string, res editor.Result, set exportSettings, _ func(int, int), _ <-chan struct{}) (string, error) {
 			in := exportInput(res)
-			return "glTF animation", fsutil.WriteAtomic(path, func(f io.Writer) error {
+			return "glTF animation", fsutil.WriteFile(path, set.write(), func(f io.Writer) error {
 				return export.WriteGLTF(f, in, export.GLTFOptions{Binary: true})
 			})
 		}}
@@ -108,7 +116,8 @@ func pngJob() exportJob {
 	return exportJob{title: "Take as PNG Frames", ext: "",
 		work: func(dir string, res editor.Result, set exportSettings, progress func(int, int), cancel <-chan struct{}) (string, error) {
 			view := set.view
-			opt := export.PNGOptions{Width: 1280, Height: 720, View: view, Twos: set.twos, Transparent: true, Cancel: cancel}
+			opt := export.PNGOptions{Width: 1280, Height: 720, View: view, Twos: set.twos, Transparent: true, Cancel: cancel,
+				ReplaceReadOnly: set.replaceReadOnly}
 			files, err := export.WritePNGSequence(dir, exportInput(res), opt, progress)
 			if errors.Is(err, export.ErrCancelled) {
 				return "", errExportCancelled
@@ -125,8 +134,8 @@ func exportInput(res editor.Result) export.Input {
 	return export.Input{Name: sc.Name, Prop: &sc.Prop, Mass: &sc.Mass, Throw: &sc.Throw, Take: res.Take}
 }
 
-func writeBytes(path string, b []byte) error {
-	return fsutil.WriteAtomic(path, func(f io.Writer) error { _, err := f.Write(b); return err })
+func writeBytes(path string, opt fsutil.Options, b []byte) error {
+	return fsutil.WriteFile(path, opt, func(f io.Writer) error { _, err := f.Write(b); return err })
 }
 
 // startExport asks where to write, then runs the job.
@@ -159,6 +168,12 @@ func (w *Window) startExport(j exportJob) {
 // dialog with Cancel, and reports the outcome. In a synchronous (test)
 // window it runs inline.
 func (w *Window) runExport(j exportJob, path string, res editor.Result) {
+	w.runExportWith(j, path, res, false)
+}
+
+// runExportWith is runExport; replaceReadOnly is set once the user agreed
+// to replace a read-only file, which the first attempt asks about.
+func (w *Window) runExportWith(j exportJob, path string, res editor.Result, replaceReadOnly bool) {
 	bar := widget.NewProgressBar()
 	cancel := make(chan struct{})
 	cancelled := false
@@ -176,13 +191,25 @@ func (w *Window) runExport(j exportJob, path string, res editor.Result) {
 		switch {
 		case errors.Is(err, errExportCancelled):
 			w.lastDialog = &shownDialog{title: "Export cancelled", message: path}
+		case errors.Is(err, fsutil.ErrReadOnly) && !replaceReadOnly:
+			ro := path
+			var pe *fs.PathError
+			if errors.As(err, &pe) {
+				ro = pe.Path // a frame file of a PNG sequence
+			}
+			w.confirmReadOnly(ro, func() { w.runExportWith(j, path, res, true) })
 		case err != nil:
+			var pe *fs.PathError
+			if errors.As(err, &pe) && pe.Path == path {
+				err = pe.Err // the message names the path once
+			}
 			w.showError("Export failed", fmt.Errorf("%s: %w", path, err))
 		default:
 			w.showInfo("Exported", fmt.Sprintf("Wrote the %s to %s.", what, path))
 		}
 	}
 	set := w.exportSettings()
+	set.replaceReadOnly = replaceReadOnly
 	if w.synchronous {
 		what, err := j.work(path, res, set, func(int, int) {}, cancel)
 		done(what, err)

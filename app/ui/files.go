@@ -11,7 +11,9 @@ import (
 	"fyne.io/fyne/v2/storage"
 	"fyne.io/fyne/v2/widget"
 
+	"propflight/app/fsutil"
 	"propflight/app/project"
+	"propflight/internal/printable"
 )
 
 // newProject starts an untitled project: one book-sized box (see
@@ -114,9 +116,7 @@ func (w *Window) save(then func()) {
 		w.saveAs(then)
 		return
 	}
-	if w.saveTo(w.ed.Path()) && then != nil {
-		then()
-	}
+	w.saveTo(w.ed.Path(), then)
 }
 
 // saveAs asks for a folder and a file name and saves the project there
@@ -127,11 +127,7 @@ func (w *Window) saveAs(then func()) {
 	if p := w.ed.Path(); p != "" {
 		name = strings.TrimSuffix(filepath.Base(p), filepath.Ext(p)) // propose the file's own name
 	}
-	w.askSavePath("Save project as", name, ".json", w.ed.Path(), func(path string) {
-		if w.saveTo(path) && then != nil {
-			then()
-		}
-	})
+	w.askSavePath("Save project as", name, ".json", w.ed.Path(), func(path string) { w.saveTo(path, then) })
 }
 
 // savePicked saves to the file named name in folder dir, as the save
@@ -142,11 +138,7 @@ func (w *Window) savePicked(dir, name string, then func()) {
 		w.showError("Cannot save", err)
 		return
 	}
-	w.confirmTarget(path, w.ed.Path(), func(path string) {
-		if w.saveTo(path) && then != nil {
-			then()
-		}
-	})
+	w.confirmTarget(path, w.ed.Path(), func(path string) { w.saveTo(path, then) })
 }
 
 // confirmReplace asks before replacing the existing file path; replace
@@ -167,12 +159,37 @@ func (w *Window) confirmReplace(path string, replace func()) {
 	d.Show()
 }
 
+// confirmReadOnly asks before replacing the read-only file path; replace
+// runs on "Replace anyway".
+func (w *Window) confirmReadOnly(path string, replace func()) {
+	base := printable.String(filepath.Base(path))
+	title := base + " is read-only"
+	msg := widget.NewLabel(fmt.Sprintf("%s in %s is read-only: someone protected it from changes. Replace it anyway? The new file keeps the read-only permission.",
+		base, printable.String(filepath.Dir(path))))
+	msg.Wrapping = fyne.TextWrapWord
+	d := dialog.NewCustomWithoutButtons(title, sized(msg, 420, 0), w.win)
+	choose := map[string]func(){
+		"Replace anyway": func() { d.Hide(); replace() },
+		"Cancel":         func() { d.Hide() },
+	}
+	rep := widget.NewButton("Replace anyway", choose["Replace anyway"])
+	rep.Importance = widget.DangerImportance
+	d.SetButtons([]fyne.CanvasObject{widget.NewButton("Cancel", choose["Cancel"]), rep})
+	w.lastDialog = &shownDialog{title: title, message: msg.Text, d: d, choose: choose}
+	d.Show()
+}
+
 // fileDialogSize is the size of the open and save dialogs: room for a
 // folder of project files.
 var fileDialogSize = fyne.NewSize(820, 580)
 
+// maxFileStem bounds a file name proposed from a project name, bytes, so
+// that with an extension (and "-frames") it stays a name file systems take.
+const maxFileStem = 100
+
 // safeFileName turns a project name into a file name: letters, digits,
-// '-' and '_' kept, spaces to '-', anything else dropped.
+// '-' and '_' kept, spaces to '-', anything else dropped, shortened to
+// maxFileStem bytes (fsutil.ShortName).
 func safeFileName(name string) string {
 	var b strings.Builder
 	for _, r := range strings.TrimSpace(name) {
@@ -186,14 +203,32 @@ func safeFileName(name string) string {
 	if b.Len() == 0 {
 		return "untitled"
 	}
-	return b.String()
+	return fsutil.ShortName(b.String(), maxFileStem)
 }
 
-// saveTo saves the project at path atomically and reports success; a
-// failure shows an error dialog and leaves the old file whole. The editor
-// keeps a relative footage path naming the same clip (editor.Save).
-func (w *Window) saveTo(path string) bool {
-	if err := w.ed.Save(path); err != nil {
+// saveTo saves the project at path atomically and runs then (if not nil)
+// after a successful save; a failure shows an error dialog and leaves the
+// old file whole. A read-only file is replaced only after the user agrees
+// (confirmReadOnly). The editor keeps a relative footage path naming the
+// same clip (editor.Save).
+func (w *Window) saveTo(path string, then func()) {
+	err := w.ed.Save(path)
+	if errors.Is(err, fsutil.ErrReadOnly) {
+		w.confirmReadOnly(path, func() {
+			if w.saved(path, w.ed.SaveWith(path, fsutil.Options{ReplaceReadOnly: true})) && then != nil {
+				then()
+			}
+		})
+		return
+	}
+	if w.saved(path, err) && then != nil {
+		then()
+	}
+}
+
+// saved finishes a save to path that ended with err, and reports success.
+func (w *Window) saved(path string, err error) bool {
+	if err != nil {
 		w.showError("Could not save "+filepath.Base(path), err)
 		return false
 	}

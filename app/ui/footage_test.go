@@ -370,7 +370,7 @@ func TestFootage_SavedRelative(t *testing.T) {
 	path := filepath.Join(root, "shots", "board.json")
 	os.MkdirAll(filepath.Dir(path), 0o755)
 	undo := w.ed.UndoLabel()
-	if !w.saveTo(path) {
+	if !saveNow(w, path) {
 		t.Fatalf("save failed: %v", w.lastDialog)
 	}
 	data, _ := os.ReadFile(path)
@@ -385,7 +385,7 @@ func TestFootage_SavedRelative(t *testing.T) {
 	// Save as into another folder keeps the same clip, again without a step.
 	other := filepath.Join(root, "elsewhere", "deep", "board.json")
 	os.MkdirAll(filepath.Dir(other), 0o755)
-	if !w.saveTo(other) || w.ed.UndoLabel() != undo || w.dirty() {
+	if !saveNow(w, other) || w.ed.UndoLabel() != undo || w.dirty() {
 		t.Fatalf("save as: %v, undo %q, dirty %v", w.lastDialog, w.ed.UndoLabel(), w.dirty())
 	}
 	if got := w.ed.Doc().Footage.Path; got != "../../plates/clip" || w.footage.seq == nil || w.footage.loadErr != nil {

@@ -412,7 +412,7 @@ func TestWindow_DirtyFlag_Title(t *testing.T) {
 	}
 	typeInto(t, w.throw.gravity, "9")
 	path := filepath.Join(t.TempDir(), "moon-pan.json")
-	if !w.saveTo(path) {
+	if !saveNow(w, path) {
 		t.Fatal("save failed")
 	}
 	if strings.Contains(w.win.Title(), "•") || w.ed.Path() != path {
