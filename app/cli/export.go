@@ -177,7 +177,7 @@ func runPNG(out io.Writer, cmd *Command, in export.Input) error {
 	opt := export.PNGOptions{
 		Width: cmd.Int("--width"), Height: cmd.Int("--height"), View: views[cmd.Text("--view")],
 		Twos: cmd.Switch("--twos"), Onion: cmd.Int("--onion"), Transparent: cmd.Switch("--transparent"),
-		StartFrame: cmd.Int("--start-frame"),
+		StartFrame:      cmd.Int("--start-frame"),
 		ReplaceReadOnly: cmd.Switch("--force"),
 	}
 	if err := opt.Validate(); err != nil {
