@@ -4,7 +4,6 @@ import (
 	"bytes"
 	"errors"
 	"os"
-	"path/filepath"
 
 	"propflight/app/fsutil"
 	"propflight/app/project"
@@ -142,8 +141,8 @@ func (e *Editor) travel(from, to *[]snapshot) bool {
 // rename), makes path the project's file and the saved state the clean
 // one. On error nothing changes.
 //
-// A relative footage.path is relative to the project file's folder, so a
-// save to another folder rewrites it to name the same footage from there
+// A relative footage.path (and a mesh part's file) is relative to the
+// project file's folder, so a save to another folder rewrites it to name the same footage from there
 // (project.Document.RebaseFootage); so does the first save of a project
 // that had no file, which also turns an absolute footage path into one
 // relative to the new folder where one can be made. The rewrite is part of
@@ -175,32 +174,19 @@ func (e *Editor) SaveWith(path string, opt fsutil.Options) error {
 	return nil
 }
 
-// footageRebase returns the rewrite of footage.path for a project that
-// moves from the file oldPath ("" for none) to newPath; see Save.
+// footageRebase returns the rewrite of footage.path and of every mesh
+// part's file for a project that moves from the file oldPath ("" for none)
+// to newPath (project.Document.RebasePaths); see Save.
 func footageRebase(oldPath, newPath string) func(d *project.Document) {
-	switch {
-	case oldPath == "":
-		return func(d *project.Document) {
-			if dir := d.FootageDir(""); dir != "" {
-				d.SetFootagePath(newPath, dir)
-			}
-		}
-	case filepath.Clean(oldPath) == filepath.Clean(newPath):
-		return func(*project.Document) {}
-	default:
-		return func(d *project.Document) { d.RebaseFootage(oldPath, newPath) }
-	}
+	return func(d *project.Document) { d.RebasePaths(oldPath, newPath) }
 }
 
-// rebaseHistory applies rebase to every undo and redo state that has
-// footage. A state that does not parse back is our own bug (mustClone).
+// rebaseHistory applies rebase to every undo and redo state. A state that
+// does not parse back is our own bug (mustClone).
 func (e *Editor) rebaseHistory(rebase func(d *project.Document)) {
 	for _, stack := range [][]snapshot{e.undo, e.redo} {
 		for i := range stack {
 			d := mustClone(stack[i].data, e.doc.File)
-			if d.Footage == nil {
-				continue
-			}
 			rebase(d)
 			if data, err := project.Marshal(d); err == nil {
 				stack[i].data = data

@@ -335,3 +335,38 @@ func TestEditor_Doc_NeverTheLiveDocument(t *testing.T) {
 		t.Fatal("Doc returned the live document")
 	}
 }
+
+// TestEditor_Save_RebasesMeshFile: a mesh part's relative file names the
+// same mesh after a save into another folder, and the project still builds.
+func TestEditor_Save_RebasesMeshFile(t *testing.T) {
+	root := t.TempDir()
+	obj := filepath.Join(root, "a", "meshes", "crate.obj")
+	if err := os.MkdirAll(filepath.Dir(obj), 0o755); err != nil {
+		t.Fatal(err)
+	}
+	os.MkdirAll(filepath.Join(root, "b"), 0o755)
+	// A closed box as OBJ quads, wound outward.
+	os.WriteFile(obj, []byte("v 0 0 0\nv 0 0 1\nv 0 1 0\nv 0 1 1\nv 1 0 0\nv 1 0 1\nv 1 1 0\nv 1 1 1\n"+
+		"f 5 7 8 6\nf 1 2 4 3\nf 3 4 8 7\nf 1 5 6 2\nf 2 6 8 4\nf 1 3 7 5\n"), 0o644)
+	oldPath := filepath.Join(root, "a", "crate.json")
+	os.WriteFile(oldPath, []byte(`{"format": "propflight/v1", "prop": {"parts": [{"shape": "mesh", "file": "meshes/crate.obj", "mass": 2}]}}`), 0o644)
+	doc, err := project.Load(oldPath)
+	if err != nil {
+		t.Fatal(err)
+	}
+	e, err := New(doc, oldPath)
+	if err != nil {
+		t.Fatal(err)
+	}
+	newPath := filepath.Join(root, "b", "crate.json")
+	if err := e.Save(newPath); err != nil {
+		t.Fatal(err)
+	}
+	d := e.Doc()
+	if got := *d.Prop.Parts[0].File; got != "../a/meshes/crate.obj" {
+		t.Errorf("file after save as %q, want ../a/meshes/crate.obj", got)
+	}
+	if _, err := d.Build(); err != nil {
+		t.Errorf("after save as: %v", err)
+	}
+}

@@ -48,12 +48,12 @@ func TestReadFile_Bad(t *testing.T) {
 		{"not GLB", "x.glb", []byte("this is not a binary glTF file"), "not a GLB file"},
 		{"glTF index out of range", "i.gltf", []byte(badGLTFIndex), "index 7 is out of range (7 positions)"},
 		{"glTF bad JSON", "j.gltf", []byte(`{"asset":`), "not valid glTF JSON"},
-		{"glTF missing side-car", "m.gltf", gltfJSON(`[{"mesh":0}]`, `[{"primitives":[{"attributes":{"POSITION":0}}]}]`, acc, views, len(bin), "gone.bin"), "buffer gone.bin: no such file"},
+		{"glTF missing side-car", "m.gltf", gltfJSON(`[{"mesh":0}]`, `[{"primitives":[{"attributes":{"POSITION":0}}]}]`, acc, views, len(bin), "gone.bin"), `buffer file "gone.bin": no such file`},
 		{"glTF side-car outside", "o.gltf", gltfJSON(`[{"mesh":0}]`, `[{"primitives":[{"attributes":{"POSITION":0}}]}]`, acc, views, len(bin), "../secret.bin"), "outside the file's folder"},
 		{"glTF extension", "e.gltf", []byte(`{"asset":{"version":"2.0"},"extensionsRequired":["KHR_draco_mesh_compression"],"scenes":[{"nodes":[]}]}`), "needs the glTF extension KHR_draco_mesh_compression"},
 		{"glTF node cycle", "c.gltf", []byte(`{"asset":{"version":"2.0"},"scenes":[{"nodes":[0]}],"nodes":[{"children":[1]},{"children":[0]}]}`), "node 0 is reached twice"},
 		{"glTF no triangles", "p.gltf", []byte(`{"asset":{"version":"2.0"},"scenes":[{"nodes":[]}]}`), "no triangles"},
-		{"unknown extension", "a.ply", []byte("ply"), "not a mesh file this tool reads"},
+		{"unknown extension", "a.ply", []byte("ply"), "not a mesh file this tool reads: .ply"},
 	} {
 		p := filepath.Join(dir, c.file)
 		if err := os.WriteFile(p, c.data, 0o644); err != nil {
@@ -64,7 +64,7 @@ func TestReadFile_Bad(t *testing.T) {
 			t.Errorf("%s: error %v, want one line with %q", c.name, err, c.want)
 		}
 	}
-	if _, err := ReadFile(filepath.Join(dir, "missing.obj"), Options{}); err == nil || err.Error() != "missing.obj: no such file" {
+	if _, err := ReadFile(filepath.Join(dir, "missing.obj"), Options{}); err == nil || err.Error() != "no such file: "+filepath.Join(dir, "missing.obj") {
 		t.Errorf("missing file: %v", err)
 	}
 	if _, err := ReadFile(filepath.Join(dir, "a.glb"), Options{UpZ: true}); err == nil || !strings.Contains(err.Error(), "always y up") {

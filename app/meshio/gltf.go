@@ -126,7 +126,7 @@ func sideCar(dir, uri string) ([]byte, error) {
 	}
 	d, err := readLimited(filepath.Join(dir, filepath.FromSlash(name)))
 	if err != nil {
-		return nil, fmt.Errorf("buffer %v", err)
+		return nil, fmt.Errorf("buffer file %q: %v", clipS(uri), err)
 	}
 	return d, nil
 }

@@ -76,7 +76,11 @@ func FormatOf(name string) (Format, error) {
 	case ".gltf":
 		return GLTF, nil
 	}
-	return 0, fmt.Errorf("%s: not a mesh file this tool reads (use .stl, .obj, .glb or .gltf)", filepath.Base(name))
+	ext := filepath.Ext(name)
+	if ext == "" {
+		return 0, fmt.Errorf("not a mesh file this tool reads: the name has no extension (use .stl, .obj, .glb or .gltf)")
+	}
+	return 0, fmt.Errorf("not a mesh file this tool reads: %s (use .stl, .obj, .glb or .gltf)", clipS(ext))
 }
 
 // Options say how to turn a file's numbers into metres in the prop's axes.
@@ -87,7 +91,9 @@ type Options struct {
 
 // ReadFile reads the mesh file at path (format by extension) and returns its
 // triangles in metres, in the prop's axes, wound as the file winds them.
-// A .gltf file's buffers may be data URIs or files beside it.
+// A .gltf file's buffers may be data URIs or files beside it. Errors do not
+// repeat the file's name, except to say it is missing; the caller names the
+// field or argument that gave it.
 func ReadFile(path string, o Options) ([][3]r3.Vec, error) {
 	scale, ok := 1.0, true
 	if o.Units != "" {
@@ -120,7 +126,7 @@ func ReadFile(path string, o Options) ([][3]r3.Vec, error) {
 		tris, err = ReadGLTF(data, func(uri string) ([]byte, error) { return sideCar(dir, uri) })
 	}
 	if err != nil {
-		return nil, fmt.Errorf("%s: %w", filepath.Base(path), err)
+		return nil, err
 	}
 	Transform(tris, scale, o.UpZ)
 	return tris, nil
@@ -151,35 +157,36 @@ func readLimited(path string) ([]byte, error) {
 		return nil, openError(path, err)
 	}
 	if st.IsDir() {
-		return nil, fmt.Errorf("%s is a folder, not a mesh file", filepath.Base(path))
+		return nil, fmt.Errorf("a folder, not a file: %s", path)
 	}
 	if st.Size() > MaxFileBytes {
-		return nil, fmt.Errorf("%s is %s, more than the %s this tool reads", filepath.Base(path), byteSize(st.Size()), byteSize(MaxFileBytes))
+		return nil, fmt.Errorf("the file is %s, more than the %s this tool reads", byteSize(st.Size()), byteSize(MaxFileBytes))
 	}
 	// Read the size the file had when opened (no growing buffer to copy);
 	// a file that changes meanwhile is read as far as it goes.
 	data := make([]byte, st.Size())
 	n, err := io.ReadFull(f, data)
 	if err != nil && err != io.ErrUnexpectedEOF {
-		return nil, fmt.Errorf("%s: %v", filepath.Base(path), err)
+		return nil, fmt.Errorf("cannot read it: %v", err)
 	}
 	return data[:n], nil
 }
 
-// openError says in plain words why path could not be opened.
+// openError says in plain words why path could not be opened, naming the
+// path as given (a relative name may have been resolved somewhere the user
+// did not expect).
 func openError(path string, err error) error {
-	name := filepath.Base(path)
 	switch {
 	case errors.Is(err, fs.ErrNotExist):
-		return fmt.Errorf("%s: no such file", name)
+		return fmt.Errorf("no such file: %s", path)
 	case errors.Is(err, fs.ErrPermission):
-		return fmt.Errorf("%s: not allowed to read it", name)
+		return fmt.Errorf("not allowed to read %s", path)
 	}
 	var pe *fs.PathError
 	if errors.As(err, &pe) {
-		return fmt.Errorf("%s: %v", name, pe.Err)
+		return fmt.Errorf("cannot open %s: %v", path, pe.Err)
 	}
-	return fmt.Errorf("%s: %v", name, err)
+	return fmt.Errorf("cannot open %s: %v", path, err)
 }
 
 // byteSize writes n bytes in the largest fitting unit ("1.2 MB").

@@ -22,6 +22,10 @@ type Scene struct {
 	// Thresholds are the verdict rules to judge it by: the project's
 	// "verdict_rules" over the defaults (Document.Thresholds).
 	Thresholds physics.Thresholds
+	// Notes say what was changed without refusing, one line each, naming the
+	// field: "prop.parts[0].file: wound inward throughout: turned outward
+	// (the same solid)".
+	Notes []string
 }
 
 // Default values of the optional fields (DESIGN.md "Contracts").
@@ -71,6 +75,7 @@ func (d *Document) Build() (*Scene, error) {
 	if sc.Prop, err = b.prop(&d.Prop); err != nil {
 		return nil, err
 	}
+	sc.Notes = b.notes
 	if sc.Mass, err = b.massProps(&sc.Prop); err != nil {
 		return nil, err
 	}
@@ -97,7 +102,10 @@ func (d *Document) sceneName() string {
 	return "untitled"
 }
 
-type builder struct{ file string }
+type builder struct {
+	file  string
+	notes []string
+}
 
 func (b *builder) fail(field, format string, args ...any) *Error {
 	return &Error{File: b.file, Field: field, Msg: fmt.Sprintf(format, args...)}
@@ -205,6 +213,8 @@ func (b *builder) part(p *Part, path string) (physics.Part, error) {
 				err = b.fail(field, "must be at least 0 and less than radius")
 			}
 			out.InnerRadius = *p.InnerRadius
+		case "file":
+			err = b.meshPart(p, path, &out)
 		}
 		if err != nil {
 			return physics.Part{}, err

@@ -266,7 +266,7 @@ func TestBuild_InMemoryDocumentIsChecked(t *testing.T) {
 		want string
 	}{
 		{"radius on box", Document{Prop: Prop{Parts: []Part{{Shape: "box", Size: &size, Radius: &r, Mass: &one}}}}, "prop.parts[0].radius: a box has no radius (it takes size)"},
-		{"no shape", Document{Prop: Prop{Parts: []Part{{Mass: &one}}}}, "prop.parts[0].shape: missing (one of box, cylinder, tube, sphere, shell, ellipsoid, cone, torus)"},
+		{"no shape", Document{Prop: Prop{Parts: []Part{{Mass: &one}}}}, "prop.parts[0].shape: missing (one of box, cylinder, tube, sphere, shell, ellipsoid, cone, torus, mesh)"},
 		{"both masses", Document{File: "x.json", Prop: Prop{Parts: []Part{{Shape: "sphere", Radius: &r, Mass: &one, Density: &one}}}}, "x.json: prop.parts[0].mass: give mass or density, not both"},
 		{"both rates", Document{Prop: Prop{Parts: []Part{{Shape: "sphere", Radius: &r, Mass: &one}}}, Throw: Throw{Spin: &Spin{TurnsPerSecond: &one, FramesPerTurn: &one}}}, "throw.spin.frames_per_turn: give turns_per_second or frames_per_turn, not both"},
 		{"bad axis name", Document{Prop: Prop{Parts: []Part{{Shape: "sphere", Radius: &r, Mass: &one}}}, Throw: Throw{Spin: &Spin{Axis: &SpinAxis{Name: "up"}, TurnsPerSecond: &one}}}, `throw.spin.axis: "up" is not an axis (use least, middle, greatest or a vector [x, y, z])`},

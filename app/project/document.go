@@ -45,11 +45,19 @@ type Prop struct {
 //	ellipsoid  semi_axes [a, b, c]
 //	cone       radius, height (axis = part z, apex toward +z)
 //	torus      radius (centre line), tube_radius (axis = part z)
+//	mesh       file, and optionally units, up and wall_m
 //
 // Lengths are in metres, mass in kg, density in kg/m^3; exactly one of
 // Mass and Density is set. Position is the part's own centre of mass in
 // the prop frame (default the origin) and RotationDeg turns the part about
 // the prop's x, then y, then z axis, in degrees (default none).
+//
+// A mesh part reads a closed triangle mesh from File (.stl, .obj, .glb or
+// .gltf; relative to the project file's folder, see [Document.MeshPath]),
+// in Units (m default, cm, mm, in, ft) with Up y (default) or z; WallM,
+// when given, makes it hollow (a thin wall of that thickness in metres).
+// Unlike the primitives, its Position and RotationDeg move and turn the
+// file's origin, not its centre of mass.
 type Part struct {
 	Name        string // "name"; may be empty
 	Shape       string // "shape"
@@ -64,6 +72,10 @@ type Part struct {
 	Density     *float64
 	Position    *Vec3
 	RotationDeg *Vec3
+	File        *string  // mesh: "file", '/' separators
+	Units       *string  // mesh: "units"
+	Up          *string  // mesh: "up"
+	WallM       *float64 // mesh: "wall_m"
 }
 
 // Throw is the "throw" object. At most one of ReleaseVelocity and the hang

@@ -118,11 +118,11 @@ func TestParse_PartErrors(t *testing.T) {
 	}
 	runErrCases(t, []errCase{
 		// shape
-		{"shape missing", withParts(`{"size": [1, 1, 1], "mass": 1}`), `pan.json: prop.parts[0].shape: missing (one of box, cylinder, tube, sphere, shell, ellipsoid, cone, torus)`, true},
+		{"shape missing", withParts(`{"size": [1, 1, 1], "mass": 1}`), `pan.json: prop.parts[0].shape: missing (one of box, cylinder, tube, sphere, shell, ellipsoid, cone, torus, mesh)`, true},
 		{"shape type", withParts(`{"shape": 3, "mass": 1}`), `pan.json: prop.parts[0].shape: must be a string`, true},
-		{"shape empty", withParts(`{"shape": "", "mass": 1}`), `pan.json: prop.parts[0].shape: must not be empty (one of box, cylinder, tube, sphere, shell, ellipsoid, cone, torus)`, true},
-		{"shape unknown", withParts(`{"shape": "blob", "mass": 1}`), `pan.json: prop.parts[0].shape: "blob" is not a shape (use one of box, cylinder, tube, sphere, shell, ellipsoid, cone, torus)`, true},
-		{"shape case", withParts(`{"shape": "Box", "size": [1, 1, 1], "mass": 1}`), `pan.json: prop.parts[0].shape: "Box" is not a shape (use one of box, cylinder, tube, sphere, shell, ellipsoid, cone, torus)`, true},
+		{"shape empty", withParts(`{"shape": "", "mass": 1}`), `pan.json: prop.parts[0].shape: must not be empty (one of box, cylinder, tube, sphere, shell, ellipsoid, cone, torus, mesh)`, true},
+		{"shape unknown", withParts(`{"shape": "blob", "mass": 1}`), `pan.json: prop.parts[0].shape: "blob" is not a shape (use one of box, cylinder, tube, sphere, shell, ellipsoid, cone, torus, mesh)`, true},
+		{"shape case", withParts(`{"shape": "Box", "size": [1, 1, 1], "mass": 1}`), `pan.json: prop.parts[0].shape: "Box" is not a shape (use one of box, cylinder, tube, sphere, shell, ellipsoid, cone, torus, mesh)`, true},
 		// keys
 		{"typo", box(`"sise": [1, 1, 1], "mass": 1`), `pan.json: prop.parts[0].sise: unknown field (did you mean "size"?)`, true},
 		{"unknown", box(`"size": [1, 1, 1], "mass": 1, "colour": "red"`), `pan.json: prop.parts[0].colour: unknown field`, true},

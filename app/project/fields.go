@@ -31,7 +31,14 @@ var shapeFields = map[physics.Shape][]string{
 	physics.Ellipsoid: {"semi_axes"},
 	physics.Cone:      {"radius", "height"},
 	physics.Torus:     {"radius", "tube_radius"},
+	physics.MeshShape: {"file"},
 }
+
+// meshKeys are the keys of mesh parts only; file is required.
+var meshKeys = []string{"file", "units", "up", "wall_m"}
+
+// shapeNames lists every shape name a part takes, mesh last.
+func shapeNames() []string { return append(physics.ShapeNames(), physics.MeshShape.String()) }
 
 // dimensionKeys are the part keys that belong to some shapes only, in the
 // order the file writes them.
@@ -42,7 +49,8 @@ func (p *Part) dimensions() map[string]bool {
 	return map[string]bool{
 		"size": p.Size != nil, "radius": p.Radius != nil, "inner_radius": p.InnerRadius != nil,
 		"length": p.Length != nil, "height": p.Height != nil, "tube_radius": p.TubeRadius != nil,
-		"semi_axes": p.SemiAxes != nil,
+		"semi_axes": p.SemiAxes != nil, "file": p.File != nil, "units": p.Units != nil, "up": p.Up != nil,
+		"wall_m": p.WallM != nil,
 	}
 }
 
@@ -52,21 +60,32 @@ func partFields(p *Part, path string) *problem {
 	shape, ok := physics.ParseShape(p.Shape)
 	if !ok {
 		if p.Shape == "" {
-			return &problem{join(path, "shape"), fmt.Sprintf("missing (one of %s)", strings.Join(physics.ShapeNames(), ", "))}
+			return &problem{join(path, "shape"), fmt.Sprintf("missing (one of %s)", strings.Join(shapeNames(), ", "))}
 		}
-		return &problem{join(path, "shape"), fmt.Sprintf("%s is not a shape (use one of %s)", quoteShort(p.Shape), strings.Join(physics.ShapeNames(), ", "))}
+		return &problem{join(path, "shape"), fmt.Sprintf("%s is not a shape (use one of %s)", quoteShort(p.Shape), strings.Join(shapeNames(), ", "))}
 	}
 	own := shapeFields[shape]
 	a := article(p.Shape)
 	given := p.dimensions()
-	for _, k := range dimensionKeys {
-		if given[k] && !slices.Contains(own, k) {
-			return &problem{join(path, k), fmt.Sprintf("%s %s has no %s (it takes %s)", a, p.Shape, k, listWords(own))}
+	if shape == physics.MeshShape {
+		for _, k := range dimensionKeys {
+			if given[k] {
+				return &problem{join(path, k), fmt.Sprintf("a mesh has no %s (it takes file, and optionally units, up and wall_m)", k)}
+			}
 		}
-	}
-	for _, k := range own {
-		if !given[k] {
-			return &problem{join(path, k), fmt.Sprintf("missing (%s %s needs %s, in metres)", a, p.Shape, listWords(own))}
+		if !given["file"] {
+			return &problem{join(path, "file"), "missing (a mesh needs file: a .stl, .obj, .glb or .gltf path, relative to the project file)"}
+		}
+	} else {
+		for _, k := range append(dimensionKeys, meshKeys...) {
+			if given[k] && !slices.Contains(own, k) {
+				return &problem{join(path, k), fmt.Sprintf("%s %s has no %s (it takes %s)", a, p.Shape, k, listWords(own))}
+			}
+		}
+		for _, k := range own {
+			if !given[k] {
+				return &problem{join(path, k), fmt.Sprintf("missing (%s %s needs %s, in metres)", a, p.Shape, listWords(own))}
+			}
 		}
 	}
 	switch {

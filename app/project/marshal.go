@@ -203,6 +203,15 @@ func (e *emitter) part(p *Part, path string) {
 	}
 	e.key("shape")
 	e.string(p.Shape)
+	for _, f := range []struct {
+		key string
+		val *string
+	}{{"file", p.File}, {"units", p.Units}, {"up", p.Up}} {
+		if f.val != nil {
+			e.key(f.key)
+			e.string(*f.val)
+		}
+	}
 	e.vec("size", path, p.Size)
 	e.num("radius", path, p.Radius)
 	e.num("inner_radius", path, p.InnerRadius)
@@ -212,6 +221,7 @@ func (e *emitter) part(p *Part, path string) {
 	e.vec("semi_axes", path, p.SemiAxes)
 	e.num("mass", path, p.Mass)
 	e.num("density", path, p.Density)
+	e.num("wall_m", path, p.WallM)
 	e.vec("position", path, p.Position)
 	e.vec("rotation_deg", path, p.RotationDeg)
 	e.close('}')

@@ -12,7 +12,6 @@ import (
 	"strings"
 
 	"propflight/app/fsutil"
-	"propflight/physics"
 )
 
 // Load reads and parses the project file at path (see Parse). Errors name
@@ -222,7 +221,7 @@ func quoteShort(s string) string {
 var (
 	documentKeys = []string{"format", "name", "prop", "throw", "verdict_rules", "footage"}
 	propKeys     = []string{"parts"}
-	partKeys     = []string{"name", "shape", "size", "radius", "inner_radius", "length", "height", "tube_radius", "semi_axes", "mass", "density", "position", "rotation_deg"}
+	partKeys     = []string{"name", "shape", "size", "radius", "inner_radius", "length", "height", "tube_radius", "semi_axes", "mass", "density", "position", "rotation_deg", "file", "units", "up", "wall_m"}
 	throwKeys    = []string{"fps", "gravity", "release_position", "release_velocity", "hang_time_s", "hang_frames", "distance", "heading_deg", "orientation_deg", "ground_y", "spin"}
 	spinKeys     = []string{"axis", "tilt_deg", "tilt_toward", "turns_per_second", "frames_per_turn"}
 	axisNames    = []string{"least", "middle", "greatest"}
@@ -342,7 +341,19 @@ func (p *parser) part(v *value, path string) (Part, error) {
 			return Part{}, err
 		}
 		if part.Shape == "" {
-			return Part{}, p.fail(join(path, "shape"), "must not be empty (one of %s)", strings.Join(physics.ShapeNames(), ", "))
+			return Part{}, p.fail(join(path, "shape"), "must not be empty (one of %s)", strings.Join(shapeNames(), ", "))
+		}
+	}
+	for _, f := range []struct {
+		key string
+		dst **string
+	}{{"file", &part.File}, {"units", &part.Units}, {"up", &part.Up}} {
+		if sv, ok := m[f.key]; ok {
+			s, err := p.str(sv, join(path, f.key))
+			if err != nil {
+				return Part{}, err
+			}
+			*f.dst = &s
 		}
 	}
 	for _, f := range []struct {
@@ -351,6 +362,7 @@ func (p *parser) part(v *value, path string) (Part, error) {
 	}{
 		{"radius", &part.Radius}, {"inner_radius", &part.InnerRadius}, {"length", &part.Length},
 		{"height", &part.Height}, {"tube_radius", &part.TubeRadius}, {"mass", &part.Mass}, {"density", &part.Density},
+		{"wall_m", &part.WallM},
 	} {
 		if *f.dst, err = p.numberPtr(m, f.key, path); err != nil {
 			return Part{}, err

@@ -1,0 +1,184 @@
+package project
+
+import (
+	"os"
+	"path/filepath"
+	"slices"
+	"strings"
+	"sync"
+	"time"
+
+	"propflight/app/meshio"
+	"propflight/physics"
+	"propflight/physics/mesh"
+)
+
+// Mesh parts: the file they name, resolved against the project file, read
+// once and kept while it does not change.
+
+// MeshPath returns part i's mesh file as a path to open: its "file"
+// resolved against the folder of projectPath when relative, or as written
+// when absolute. With an empty projectPath a relative file is relative to
+// the working directory. It returns "" when part i is not a mesh with a file.
+func (d *Document) MeshPath(projectPath string, i int) string {
+	if i < 0 || i >= len(d.Prop.Parts) || d.Prop.Parts[i].File == nil || *d.Prop.Parts[i].File == "" {
+		return ""
+	}
+	return resolve(projectPath, *d.Prop.Parts[i].File)
+}
+
+func resolve(projectPath, file string) string {
+	p := filepath.FromSlash(file)
+	if filepath.IsAbs(p) || projectPath == "" {
+		return filepath.Clean(p)
+	}
+	return filepath.Join(filepath.Dir(projectPath), p)
+}
+
+// SetMeshPath sets part i's "file" to meshPath, written relative to the
+// folder of projectPath when one can be made (with '/' separators), else
+// absolute; see SetFootagePath.
+func (d *Document) SetMeshPath(projectPath string, i int, meshPath string) {
+	f := footagePathFor(projectPath, meshPath)
+	d.Prop.Parts[i].File = &f
+}
+
+// RebasePaths rewrites the relative paths of the document (footage.path and
+// every mesh part's file) for a project that moves from oldProject to
+// newProject (a "Save as" to another folder), so that they still name the
+// same files. With oldProject "" (a project never saved) every path,
+// absolute ones too, is made relative to newProject's folder where it can
+// be. Absolute paths of a saved project are kept as written.
+func (d *Document) RebasePaths(oldProject, newProject string) {
+	if filepath.Clean(oldProject) == filepath.Clean(newProject) && oldProject != "" {
+		return
+	}
+	if oldProject == "" {
+		if dir := d.FootageDir(""); dir != "" {
+			d.SetFootagePath(newProject, dir)
+		}
+	} else {
+		d.RebaseFootage(oldProject, newProject)
+	}
+	for i := range d.Prop.Parts {
+		f := d.Prop.Parts[i].File
+		if f == nil || *f == "" || (oldProject != "" && filepath.IsAbs(filepath.FromSlash(*f))) {
+			continue
+		}
+		d.SetMeshPath(newProject, i, d.MeshPath(oldProject, i))
+	}
+}
+
+// meshPart fills out's mesh fields from the part at path.
+func (b *builder) meshPart(p *Part, path string, out *physics.Part) error {
+	units := "m"
+	if p.Units != nil {
+		units = *p.Units
+		if _, ok := meshio.UnitScale(units); !ok {
+			return b.fail(join(path, "units"), "%s is not a unit (use %s)", quoteShort(units), listOr(meshio.UnitNames()))
+		}
+	}
+	upZ := false
+	if p.Up != nil {
+		switch *p.Up {
+		case "y":
+		case "z":
+			upZ = true
+		default:
+			return b.fail(join(path, "up"), "%s is not an up axis (use y or z)", quoteShort(*p.Up))
+		}
+	}
+	if *p.File == "" {
+		return b.fail(join(path, "file"), "must not be empty (a .stl, .obj, .glb or .gltf path, relative to the project file)")
+	}
+	f, err := meshio.FormatOf(*p.File)
+	if err != nil {
+		return b.fail(join(path, "file"), "%v", err)
+	}
+	if upZ && (f == meshio.GLB || f == meshio.GLTF) {
+		return b.fail(join(path, "up"), "a glTF file is always y up: leave up out or set it to y")
+	}
+	if p.WallM != nil {
+		if err := b.length(join(path, "wall_m"), *p.WallM); err != nil {
+			return err
+		}
+		out.Wall = *p.WallM
+	}
+	m, notes, err := loadMesh(resolve(b.file, *p.File), meshio.Options{Units: units, UpZ: upZ})
+	if err != nil {
+		return &Error{File: b.file, Field: join(path, "file"), Msg: err.Error(), Err: err}
+	}
+	out.Mesh = m
+	for _, n := range notes {
+		b.notes = append(b.notes, join(path, "file")+": "+n)
+	}
+	return nil
+}
+
+func listOr(words []string) string {
+	return strings.Join(words[:len(words)-1], ", ") + " or " + words[len(words)-1]
+}
+
+// The mesh cache keeps the last meshes read, keyed by the file's path,
+// size and modification time and the units and up applied, so that the
+// window's recompute after every edit does not read and check a large
+// model again. A changed file is read again.
+const meshCacheSize = 8
+
+type meshKey struct {
+	path  string
+	size  int64
+	mtime time.Time
+	opt   meshio.Options
+}
+
+type meshEntry struct {
+	key   meshKey
+	mesh  *mesh.Mesh
+	notes []string
+}
+
+var meshCache struct {
+	sync.Mutex
+	entries []meshEntry // most recent last
+}
+
+// loadMesh reads and checks the mesh file at path, or returns the cached
+// mesh of the same unchanged file.
+func loadMesh(path string, o meshio.Options) (*mesh.Mesh, []string, error) {
+	abs, err := filepath.Abs(path)
+	if err != nil {
+		abs = path
+	}
+	st, statErr := os.Stat(abs)
+	var key meshKey
+	if statErr == nil {
+		key = meshKey{abs, st.Size(), st.ModTime(), o}
+		meshCache.Lock()
+		i := slices.IndexFunc(meshCache.entries, func(e meshEntry) bool { return e.key == key })
+		if i >= 0 {
+			e := meshCache.entries[i]
+			meshCache.entries = append(slices.Delete(meshCache.entries, i, i+1), e)
+			meshCache.Unlock()
+			return e.mesh, e.notes, nil
+		}
+		meshCache.Unlock()
+	}
+	tris, err := meshio.ReadFile(path, o)
+	if err != nil {
+		return nil, nil, err
+	}
+	m, notes, err := mesh.New(tris)
+	if err != nil {
+		return nil, nil, err
+	}
+	if statErr == nil {
+		meshCache.Lock()
+		if len(meshCache.entries) >= meshCacheSize {
+			meshCache.entries = slices.Delete(meshCache.entries, 0, 1)
+		}
+		meshCache.entries = append(meshCache.entries, meshEntry{key, m, notes})
+		meshCache.Unlock()
+	}
+	return m, notes, nil
+}
