@@ -157,7 +157,7 @@ func Draw(cam Camera, sc Scene) Drawing {
 		d.radius = pw.radius
 		// Room for the prop in every pose drawn (a mesh's contour is
 		// guessed at a tenth of its creases) and the rest of the scene.
-		lines := len(pw.edges)
+		lines := len(pw.edges) + 4*len(pw.chainStart)
 		for _, po := range pw.outlines {
 			lines += len(po.o.Creases())/10 + 64
 		}
@@ -319,7 +319,12 @@ type propWire struct {
 	// vertices lie inside those).
 	bound    []r3.Vec
 	outlines []placedOutline
-	radius   float64 // largest |vertex|, m
+	// Mesh parts' crease chains, as indices into verts: chain i runs
+	// through chainVerts[chainStart[i]:chainStart[i+1]] (the last chain to
+	// the end).
+	chainVerts []uint32
+	chainStart []int
+	radius     float64 // largest |vertex|, m
 }
 
 // placedOutline is a mesh part's outline in the prop: a mesh point v is at
@@ -357,8 +362,11 @@ func newPropWire(p *physics.Prop, mp *physics.MassProps, detail int) *propWire {
 				remap[i] = j
 				return j
 			}
-			for _, e := range o.Creases() {
-				pw.edges = append(pw.edges, [2]uint32{use(e[0]), use(e[1])})
+			for c := range o.Chains() {
+				pw.chainStart = append(pw.chainStart, len(pw.chainVerts))
+				for _, i := range o.Chain(c) {
+					pw.chainVerts = append(pw.chainVerts, use(i))
+				}
 			}
 			for _, i := range o.Extremes() {
 				pw.bound = append(pw.bound, r3.Add(pos, r.MulVec(o.Vertex(i))))
@@ -409,8 +417,10 @@ type drawer struct {
 	// toward the viewer and the eye, world.
 	ortho     bool
 	back, eye r3.Vec
-	edges     [][2]int32 // scratch for contour edges
-	front     []bool     // scratch for facing faces
+	edges     [][2]int32   // scratch for contour edges
+	chainPts  []r3.Vec     // scratch for a crease chain's world points
+	screen    [][2]float64 // scratch for their pixels
+	front     []bool       // scratch for facing faces
 	// avoid is a screen disc (x, y, radius in pixels) that labels keep out
 	// of: the current prop.
 	avoid [3]float64
@@ -425,6 +435,17 @@ func (d *drawer) prop(pw *propWire, cm r3.Vec, rot physics.Mat3, k Kind, alpha f
 	}
 	for _, e := range pw.edges {
 		d.segment3(d.world[e[0]], d.world[e[1]], k, alpha)
+	}
+	for c, from := range pw.chainStart {
+		to := len(pw.chainVerts)
+		if c+1 < len(pw.chainStart) {
+			to = pw.chainStart[c+1]
+		}
+		d.chainPts = d.chainPts[:0]
+		for _, i := range pw.chainVerts[from:to] {
+			d.chainPts = append(d.chainPts, d.world[i])
+		}
+		d.polyline(d.chainPts, k, alpha)
 	}
 	for i := range pw.outlines {
 		d.contour(&pw.outlines[i], cm, rot, k, alpha)

@@ -54,10 +54,21 @@ type Outline struct {
 	// Faces are kept in patches (see buildPatches): inner lists each
 	// patch's smooth edges (indices into smooth and sides) and border the
 	// smooth edges between two patches.
-	patches []patch
-	tri     [][3]int32 // the triangles in patch order
-	inner   []int32
-	border  []int32
+	// Crease chains (see buildChains): chain i is
+	// chainVerts[chainStart[i]:chainStart[i+1]].
+	chainVerts []int32
+	chainStart []int32
+	patches    []patch
+	tri        [][3]int32 // the triangles in patch order
+	inner      []int32
+	border     []int32
+	runs       []borderRun
+	reach      struct { // the last Reach
+		sync.Mutex
+		at  r3.Vec
+		val float64
+		ok  bool
+	}
 }
 
 // NewOutline prepares the line drawing of the triangle mesh (v, t) with
@@ -156,6 +167,7 @@ func NewOutline(v []r3.Vec, t [][3]int32, angle float64) *Outline {
 			o.sides = append(o.sides, [2]int32{faces[0], faces[1]})
 		}
 	}
+	o.buildChains(len(v))
 	o.buildPatches(v, t)
 	o.extreme = extremes(v)
 	return o
@@ -233,23 +245,28 @@ func (o *Outline) Extremes() []int32 { return o.extreme }
 // an edge is on the contour when one of its faces turns toward the viewer
 // and the other does not.
 func (o *Outline) Contour(dst [][2]int32, view r3.Vec, ortho bool, front []bool) ([][2]int32, []bool) {
-	if cap(front) < len(o.normal) {
-		front = make([]bool, len(o.normal))
+	nf, np := len(o.normal), len(o.patches)
+	if cap(front) < nf+2*np {
+		front = make([]bool, nf+2*np)
 	}
-	front = front[:len(o.normal)]
+	front = front[:nf+2*np]
+	// After the faces: whether each patch was decided whole, and its verdict.
+	decided, verdict := front[nf:nf+np], front[nf+np:]
 	wx, wy, wz := view.X, view.Y, view.Z
 	for p := range o.patches {
 		pa := &o.patches[p]
-		from, to := p*patchFaces, min((p+1)*patchFaces, len(o.normal))
+		from, to := p*patchFaces, min((p+1)*patchFaces, nf)
 		if c := pa.facing(view, ortho); c != mixed {
-			// Decided as a whole: no contour inside; its faces' verdict is
-			// for the border edges.
+			// No contour inside; the faces take the patch's verdict for
+			// the border edges.
 			fr := c == allFront
+			decided[p], verdict[p] = true, fr
 			for f := from; f < to; f++ {
 				front[f] = fr
 			}
 			continue
 		}
+		decided[p] = false
 		if ortho {
 			for f := from; f < to; f++ {
 				n := &o.normal[f]
@@ -267,10 +284,18 @@ func (o *Outline) Contour(dst [][2]int32, view r3.Vec, ortho bool, front []bool)
 			}
 		}
 	}
-	for _, e := range o.border {
-		if s := o.sides[e]; front[s[0]] != front[s[1]] {
-			dst = append(dst, o.smooth[e])
+	from := int32(0)
+	for _, r := range o.runs {
+		if decided[r.p0] && decided[r.p1] && verdict[r.p0] == verdict[r.p1] {
+			from = r.to
+			continue // both sides turn the same way
 		}
+		for _, e := range o.border[from:r.to] {
+			if s := o.sides[e]; front[s[0]] != front[s[1]] {
+				dst = append(dst, o.smooth[e])
+			}
+		}
+		from = r.to
 	}
 	return dst, front
 }

@@ -168,7 +168,37 @@ func (o *Outline) buildPatches(v []r3.Vec, t [][3]int32) {
 			o.border = append(o.border, int32(i))
 		}
 	}
+	// Border edges in runs by the pair of patches they join, so that a
+	// run between two patches decided alike is passed over whole.
+	pair := func(e int32) uint64 {
+		s := o.sides[e]
+		p0, p1 := uint64(s[0]/patchFaces), uint64(s[1]/patchFaces)
+		return min(p0, p1)<<32 | max(p0, p1)
+	}
+	slices.SortFunc(o.border, func(a, b int32) int {
+		if ka, kb := pair(a), pair(b); ka != kb {
+			if ka < kb {
+				return -1
+			}
+			return 1
+		}
+		return int(a - b)
+	})
+	o.runs = o.runs[:0]
+	for i := 0; i < len(o.border); {
+		k := pair(o.border[i])
+		j := i + 1
+		for j < len(o.border) && pair(o.border[j]) == k {
+			j++
+		}
+		o.runs = append(o.runs, borderRun{p0: int32(k >> 32), p1: int32(uint32(k)), to: int32(j)})
+		i = j
+	}
 }
+
+// borderRun is a run of Outline.border, the edges between patches p0 and
+// p1, up to (not including) border[to]; it starts where the last run ended.
+type borderRun struct{ p0, p1, to int32 }
 
 // normalBin sorts unit normals into 96 bins: the cube face the normal
 // points through (6), then a 4 x 4 grid on that face.
@@ -244,8 +274,20 @@ func (pa *patch) facing(view r3.Vec, ortho bool) int {
 // Reach returns the largest distance of a vertex of the mesh's triangles
 // from c, m (0 for an empty mesh). It is exact: the extremes give a first
 // answer, and only the patches whose bounding sphere reaches farther than
-// that are searched vertex by vertex.
+// that are searched vertex by vertex. The last answer is kept, since every
+// drawing of one prop asks about the same point.
 func (o *Outline) Reach(c r3.Vec) float64 {
+	o.reach.Lock()
+	defer o.reach.Unlock()
+	if o.reach.ok && o.reach.at == c {
+		return o.reach.val
+	}
+	best := o.reachOf(c)
+	o.reach.at, o.reach.val, o.reach.ok = c, best, true
+	return best
+}
+
+func (o *Outline) reachOf(c r3.Vec) float64 {
 	best := 0.0
 	for _, i := range o.extreme {
 		best = math.Max(best, r3.Norm(r3.Sub(o.vec[i], c)))
