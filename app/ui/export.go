@@ -17,6 +17,7 @@ import (
 	"propflight/app/editor"
 	"propflight/app/export"
 	"propflight/app/fsutil"
+	"propflight/app/project"
 	"propflight/app/sheet"
 	"propflight/widgets/wire"
 )
@@ -45,6 +46,8 @@ type exportSettings struct {
 	view wire.View // the preview's view, for PNG frames
 	// replaceReadOnly: the user agreed to replace a read-only file.
 	replaceReadOnly bool
+	// landing is the Land it tab's landing page for the sheet, or nil.
+	landing func(*project.Scene) *sheet.Landing
 }
 
 // write returns the file-writing options of the settings.
@@ -54,7 +57,7 @@ func (s exportSettings) write() fsutil.Options {
 
 // exportSettings reads the settings an export uses from the controls.
 func (w *Window) exportSettings() exportSettings {
-	return exportSettings{twos: w.throw.onTwos(), view: w.view.preview.View()}
+	return exportSettings{twos: w.throw.onTwos(), view: w.view.preview.View(), landing: w.land.sheetPage()}
 }
 
 // errExportCancelled is the work's answer to a Cancel press.
@@ -79,6 +82,9 @@ func sheetJob(paper string) exportJob {
 		work: func(path string, res editor.Result, set exportSettings, progress func(int, int), cancel <-chan struct{}) (string, error) {
 			thr := res.Thresholds
 			in := sheet.Input{Scene: res.Scene, Verdict: res.Verdict, Take: res.Take, Thresholds: &thr}
+			if set.landing != nil {
+				in.Landing = set.landing(res.Scene)
+			}
 			var buf bytes.Buffer
 			err := sheet.Write(&buf, in, sheet.Options{Paper: paper, Twos: set.twos, Progress: progress, Cancel: cancel})
 			if errors.Is(err, sheet.ErrCancelled) {

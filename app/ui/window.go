@@ -52,6 +52,7 @@ type Window struct {
 	throw    *throwPanel
 	verdict  *verdictPanel
 	axisMap  *axisMapPane
+	land     *landPanel
 	view     *previewPane
 	timeline *timelinePane
 	footage  *footagePane
@@ -209,6 +210,7 @@ func (w *Window) build() {
 	w.throw = newThrowPanel(w)
 	w.verdict = newVerdictPanel(w)
 	w.axisMap = newAxisMapPane(w)
+	w.land = newLandPanel(w)
 	w.view = newPreviewPane(w)
 	w.timeline = newTimelinePane(w)
 	w.footage = newFootagePane(w)
@@ -219,7 +221,10 @@ func (w *Window) build() {
 		container.NewTabItem("Prop", scrollColumn(w.props.content)),
 		container.NewTabItem("Throw", scrollColumn(w.throw.content)),
 		container.NewTabItem("Footage", scrollColumn(w.footage.content)),
+		container.NewTabItem("Land it", scrollColumn(w.land.content)),
 	)
+	// The plan and spread run only while their tab is open.
+	tabs.OnSelected = func(t *container.TabItem) { w.land.setVisible(t.Text == "Land it") }
 	left := sized(tabs, 430, 300)
 	verdictAndMap := container.NewVSplit(scrollColumn(w.verdict.content), w.axisMap.content)
 	verdictAndMap.SetOffset(0.55)
@@ -316,6 +321,7 @@ func (w *Window) apply(res editor.Result) {
 		w.props.setResult(res)
 		w.throw.setResult(res)
 		w.footage.refit() // gravity may have changed
+		w.land.setResult(res)
 		w.showFrame()
 		if w.reframe {
 			w.reframe = false
