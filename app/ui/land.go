@@ -192,7 +192,7 @@ func newLandPanel(w *Window) *landPanel {
 		container.NewBorder(nil, nil, widget.NewLabel("samples"), container.NewHBox(p.seedLabel, newSeed), p.samples),
 		p.progress,
 		p.figures,
-		widget.NewLabel("Landing error (tolerance in orange)"),
+		widget.NewLabel("Landing error, 0° to 180° (tolerance in orange)"),
 		p.hist,
 		widget.NewLabel("Landing points from above (x right, z down)"),
 		p.scatter,
@@ -366,10 +366,10 @@ func (p *landPanel) solutionText(i int) (string, string) {
 	tps := s.Rate / (2 * math.Pi)
 	best := ""
 	if i == pl.Best() {
-		best = "  ★ best"
+		best = "★ "
 	}
-	main := fmt.Sprintf("%.4f turns/s · %.2f frames/turn · %.2f turns · %.1f° off%s",
-		tps, p.last.scene.Throw.FPS.FPS()/tps, s.Turns, s.Error*180/math.Pi, best)
+	main := fmt.Sprintf("%s%.4f turns/s · %.2f frames/turn · %.2f turns · %.1f° off",
+		best, tps, p.last.scene.Throw.FPS.FPS()/tps, s.Turns, s.Error*180/math.Pi)
 	sub := fmt.Sprintf("window %.4f–%.4f turns/s (±%.4f), a %s", s.WindowLo/(2*math.Pi), s.WindowHi/(2*math.Pi),
 		(s.WindowHi-s.WindowLo)/(4*math.Pi), s.Motion)
 	return main, sub
