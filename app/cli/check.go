@@ -232,7 +232,7 @@ func writeSummary(w io.Writer, f *flight) {
 			sub("", "against the Euler-angle spin, the turn relative to the wobble: 1 : %s", num(v.WobblesPerEulerTurn))
 		}
 		if v.Symmetry == physics.Asymmetric {
-			sub("", "(means over one polhode period of the %s axis going round the angular momentum)", axisWords[v.Circles])
+			sub("", "(mean rates over one polhode period: exact)")
 		}
 		period := 2 * math.Pi / v.PrecessionRate
 		sub("", "one wobble every %.3f s (%s frames)", period, num(period*rate.FPS()))

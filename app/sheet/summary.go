@@ -56,6 +56,10 @@ func (s *sheet) summary() error {
 	yr = s.items(x+colW+6, yr, colW, 27, s.throwItems(), sizeSmall, true)
 	y = max(yl, yr) + 5
 
+	if y+axisMapH <= s.contentBottom() {
+		y = s.axisMap(x, y, w) + 4
+	}
+
 	if s.contentBottom()-y < minChartH {
 		s.newPage()
 		y = contentTop + 1
