@@ -11,7 +11,9 @@ import (
 
 	"propflight/app/export"
 	"propflight/app/fsutil"
+	"propflight/app/project"
 	"propflight/internal/printable"
+	"propflight/physics"
 	"propflight/widgets/wire"
 )
 
@@ -110,12 +112,23 @@ func checkExport(cmd *Command) error {
 }
 
 // runExport writes the take in the chosen format to -o ("-": out, which
-// Run copies to standard output). Files are written atomically.
+// Run copies to standard output). Files are written atomically. A limit of
+// the export (PNG images, glTF keys) is reported on the project's field.
 func runExport(out io.Writer, cmd *Command) error {
 	f, err := loadAndFly(cmd)
 	if err != nil {
 		return err
 	}
+	err = exportTake(out, cmd, f)
+	var fe *physics.FieldError
+	if errors.As(err, &fe) {
+		return &project.Error{File: f.src.label, Field: fe.Field, Msg: fe.Msg}
+	}
+	return err
+}
+
+// exportTake writes the flown take as runExport describes.
+func exportTake(out io.Writer, cmd *Command, f *flight) error {
 	in := export.Input{Name: f.scene.Name, Prop: &f.scene.Prop, Mass: &f.scene.Mass, Throw: &f.scene.Throw, Take: f.take}
 	dest := cmd.Text("--output")
 	switch cmd.Text("--format") {
@@ -184,7 +197,7 @@ func runPNG(out io.Writer, cmd *Command, in export.Input) error {
 		return usagef("export: --%v", err)
 	}
 	dir := cmd.Text("--output")
-	files, err := export.WritePNGSequence(dir, in, opt, nil)
+	files, err := export.WritePNGSequence(dir, in, opt, cmd.progress.start("writing PNG frames"))
 	if err != nil {
 		var pe *fs.PathError
 		if errors.As(err, &pe) {

@@ -21,8 +21,9 @@ type Command struct {
 	// help sheet", "propflight sheet --help"); empty for the overview.
 	Topic string
 
-	spec *Spec
-	set  map[string]string // canonical flag name -> value ("" for a switch)
+	spec     *Spec
+	set      map[string]string // canonical flag name -> value ("" for a switch)
+	progress *progressLine     // stderr's progress line; nil unless it is a terminal (Run sets it)
 }
 
 // Has reports whether the flag (canonical name, "--paper") was given.

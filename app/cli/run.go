@@ -73,7 +73,9 @@ func Run(args []string, stdout, stderr io.Writer, openWindow func(path string) e
 	case cmd.Name == "version":
 		fmt.Fprintf(&out, "propflight %s (%s %s/%s%s)\n", Version, runtime.Version(), runtime.GOOS, runtime.GOARCH, revision())
 	case cmd.spec != nil && cmd.spec.Run != nil:
+		cmd.progress = newProgress(stderr)
 		err = cmd.spec.Run(&out, &cmd)
+		cmd.progress.finish()
 	default:
 		err = fmt.Errorf("command %q has no handler", cmd.Name) // a bug in its declaration
 	}

@@ -52,7 +52,7 @@ func runSheet(out io.Writer, cmd *Command) error {
 	if in.Landing, err = sheetLanding(cmd, f); err != nil {
 		return err
 	}
-	opt := sheet.Options{Paper: cmd.Text("--paper"), Twos: cmd.Switch("--twos"), StartFrame: cmd.Int("--start-frame"),
+	opt := sheet.Options{Paper: cmd.Text("--paper"), Twos: cmd.Switch("--twos"), Progress: cmd.progress.start("laying out the timing sheet"), StartFrame: cmd.Int("--start-frame"),
 		NonDropTimecode: cmd.Switch("--non-drop")}
 	rate := f.scene.Throw.FPS
 	drop := rate.IsDropFrame() && !opt.NonDropTimecode

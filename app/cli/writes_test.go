@@ -76,3 +76,12 @@ func TestRun_PNGExportOfALongName(t *testing.T) {
 		}
 	}
 }
+
+func TestRun_PNGImageLimitNamesTheField(t *testing.T) {
+	path := brickWith(t, `"fps": 24`, `"fps": 10000`)
+	dir := filepath.Join(t.TempDir(), "frames")
+	code, _, errs := run(t, "export", path, "--format", "png", "-o", dir)
+	if code != ExitInput || !strings.Contains(errs, path+": throw.fps: the take needs") {
+		t.Errorf("exit %d: %s", code, errs)
+	}
+}

@@ -39,6 +39,20 @@ type GLTFOptions struct {
 // spins get evenly spaced sub-frame keys.
 const MaxKeyTurnDeg = 90.0
 
+// MaxGLTFKeys is the most animation keys WriteGLTF writes (frames times
+// keys a frame): a million keys is about 44 MB of key data, far more than
+// any 3D package wants for one throw.
+const MaxGLTFKeys = 1_000_000
+
+// checkKeys refuses a take of frames frames keyed perFrame times a frame
+// beyond MaxGLTFKeys, naming the spin (whose rate sets the keys a frame).
+func checkKeys(frames, perFrame int) error {
+	if n := int64(frames) * int64(perFrame); n > MaxGLTFKeys {
+		return &physics.FieldError{Field: "throw.spin", Msg: fmt.Sprintf("the glTF animation would need %d keys (%d frames, %d keys a frame to keep each turn under %g degrees), more than %d: lower the spin rate or the frame rate", n, frames, perFrame, MaxKeyTurnDeg, MaxGLTFKeys)}
+	}
+	return nil
+}
+
 // glTF 2.0 numeric codes (Specification 2.0.1, §5 "JSON Schema Reference").
 const (
 	compFloat       = 5126
@@ -76,10 +90,7 @@ func WriteGLTF(w io.Writer, in Input, opt GLTFOptions) error {
 	}
 	doc, bin := buildGLTF(in, mesh, keys)
 	if !opt.Binary {
-		doc.Buffers[0].URI = "data:application/octet-stream;base64," + base64.StdEncoding.EncodeToString(bin)
-		enc := json.NewEncoder(w)
-		enc.SetIndent("", " ")
-		return enc.Encode(doc)
+		return writeEmbedded(w, doc, bin)
 	}
 	js, err := json.Marshal(doc)
 	if err != nil {
@@ -92,18 +103,61 @@ func WriteGLTF(w io.Writer, in Input, opt GLTFOptions) error {
 		bin = append(bin, 0)
 	}
 	total := 12 + 8 + len(js) + 8 + len(bin)
-	var hdr bytes.Buffer
 	le := binary.LittleEndian
-	hdr.Write(le.AppendUint32(nil, glbMagic))
-	hdr.Write(le.AppendUint32(nil, glbVersion))
-	hdr.Write(le.AppendUint32(nil, uint32(total)))
-	hdr.Write(le.AppendUint32(nil, uint32(len(js))))
-	hdr.Write(le.AppendUint32(nil, glbChunkJSON))
-	hdr.Write(js)
-	hdr.Write(le.AppendUint32(nil, uint32(len(bin))))
-	hdr.Write(le.AppendUint32(nil, glbChunkBIN))
-	hdr.Write(bin)
-	_, err = w.Write(hdr.Bytes())
+	var hdr []byte
+	hdr = le.AppendUint32(hdr, glbMagic)
+	hdr = le.AppendUint32(hdr, glbVersion)
+	hdr = le.AppendUint32(hdr, uint32(total))
+	hdr = le.AppendUint32(hdr, uint32(len(js)))
+	hdr = le.AppendUint32(hdr, glbChunkJSON)
+	hdr = append(hdr, js...)
+	hdr = le.AppendUint32(hdr, uint32(len(bin)))
+	hdr = le.AppendUint32(hdr, glbChunkBIN)
+	// The buffer goes out as it is, without a copy behind the header.
+	if _, err := w.Write(hdr); err != nil {
+		return err
+	}
+	_, err = w.Write(bin)
+	return err
+}
+
+// uriMark is how encoding/json writes the placeholder URI that
+// writeEmbedded puts in while it encodes the JSON: NUL characters come out
+// escaped as \u0000. A name that holds the very same text makes it occur
+// twice, and writeEmbedded then falls back to encoding in memory.
+const uriMark = `\u0000propflight-buffer\u0000`
+
+// writeEmbedded writes the .gltf JSON with the buffer as a base64 data URI,
+// encoding the buffer straight into w: the JSON is encoded with a marker
+// in place of the URI, and the base64 text is streamed where the marker
+// stands, so the buffer is never held a second time as a string.
+func writeEmbedded(w io.Writer, doc *gltfDoc, bin []byte) error {
+	doc.Buffers[0].URI = "\x00propflight-buffer\x00"
+	var js bytes.Buffer
+	enc := json.NewEncoder(&js)
+	enc.SetIndent("", " ")
+	if err := enc.Encode(doc); err != nil {
+		return err
+	}
+	if bytes.Count(js.Bytes(), []byte(uriMark)) != 1 {
+		// A name holding the marker itself: encode the URI in memory.
+		doc.Buffers[0].URI = "data:application/octet-stream;base64," + base64.StdEncoding.EncodeToString(bin)
+		enc := json.NewEncoder(w)
+		enc.SetIndent("", " ")
+		return enc.Encode(doc)
+	}
+	head, tail, _ := bytes.Cut(js.Bytes(), []byte(uriMark))
+	if _, err := io.WriteString(w, string(head)+"data:application/octet-stream;base64,"); err != nil {
+		return err
+	}
+	b64 := base64.NewEncoder(base64.StdEncoding, w)
+	if _, err := b64.Write(bin); err != nil {
+		return err
+	}
+	if err := b64.Close(); err != nil {
+		return err
+	}
+	_, err := w.Write(tail)
 	return err
 }
 
@@ -127,6 +181,9 @@ func animationKeys(in Input) ([]key, error) {
 	for k := int(math.Floor(maxTurn(frames)/MaxKeyTurnDeg)) + 1; maxTurn(frames) >= MaxKeyTurnDeg; k++ {
 		if k > 1024 {
 			return nil, errors.New("gltf: the prop turns too fast to key (more than 1024 keys a frame)")
+		}
+		if err := checkKeys(in.Take.LandingFrame+1, k); err != nil {
+			return nil, err
 		}
 		th := *in.Throw
 		th.FPS = physics.Rate{Num: th.FPS.Num * int64(k), Den: th.FPS.Den}
@@ -271,12 +328,22 @@ func buildGLTF(in Input, mesh wire.Mesh, keys []key) (*gltfDoc, []byte) {
 		Materials: []gltfMaterial{{Name: "prop", PBR: gltfPBR{
 			BaseColorFactor: [4]float64{0.85, 0.62, 0.38, 1}, MetallicFactor: 0, RoughnessFactor: 0.7}}},
 	}
-	view := func(data []byte, target int) int {
+	// The buffer is allocated once at its final size (each view padded to
+	// 4 bytes) and every view is written straight into it: no view is
+	// built on its own and copied, so the peak memory is the mesh plus one
+	// buffer.
+	nv, nt, n := len(mesh.Vertices), len(mesh.Triangles), len(keys)
+	pad4 := func(x int) int { return (x + 3) &^ 3 }
+	bin = make([]byte, 0, pad4(12*nv)+pad4(12*nv)+pad4(12*nt)+pad4(4*n)+pad4(12*n)+pad4(16*n)+pad4(12*n))
+	start := 0
+	begin := func() {
 		for len(bin)%4 != 0 {
 			bin = append(bin, 0)
 		}
-		doc.BufferViews = append(doc.BufferViews, gltfView{Buffer: 0, ByteOffset: len(bin), ByteLength: len(data), Target: target})
-		bin = append(bin, data...)
+		start = len(bin)
+	}
+	end := func(target int) int {
+		doc.BufferViews = append(doc.BufferViews, gltfView{Buffer: 0, ByteOffset: start, ByteLength: len(bin) - start, Target: target})
 		return len(doc.BufferViews) - 1
 	}
 	accessor := func(a gltfAccessor) int {
@@ -288,28 +355,30 @@ func buildGLTF(in Input, mesh wire.Mesh, keys []key) (*gltfDoc, []byte) {
 
 	// Vertices relative to the centre of mass, so the node's origin is the CM.
 	cm := in.Mass.CM
-	var pos, nrm []byte
 	lo := [3]float32{float32(math.Inf(1)), float32(math.Inf(1)), float32(math.Inf(1))}
 	hi := [3]float32{float32(math.Inf(-1)), float32(math.Inf(-1)), float32(math.Inf(-1))}
-	for i, v := range mesh.Vertices {
+	begin()
+	for _, v := range mesh.Vertices {
 		p := r3.Sub(v, cm)
 		c := [3]float32{float32(p.X), float32(p.Y), float32(p.Z)}
 		for k := range 3 {
 			lo[k] = min(lo[k], c[k])
 			hi[k] = max(hi[k], c[k])
 		}
-		pos = f32(f32(f32(pos, p.X), p.Y), p.Z)
-		n := unitFloat32(mesh.Normals[i])
-		nrm = f32(f32(f32(nrm, n.X), n.Y), n.Z)
+		bin = f32(f32(f32(bin, p.X), p.Y), p.Z)
 	}
-	var idx []byte
+	aPos := accessor(gltfAccessor{BufferView: end(targetArray), ComponentType: compFloat, Count: nv, Type: "VEC3", Min: lo[:], Max: hi[:]})
+	begin()
+	for _, nr := range mesh.Normals {
+		u := unitFloat32(nr)
+		bin = f32(f32(f32(bin, u.X), u.Y), u.Z)
+	}
+	aNrm := accessor(gltfAccessor{BufferView: end(targetArray), ComponentType: compFloat, Count: nv, Type: "VEC3"})
+	begin()
 	for _, t := range mesh.Triangles {
-		idx = le.AppendUint32(le.AppendUint32(le.AppendUint32(idx, t[0]), t[1]), t[2])
+		bin = le.AppendUint32(le.AppendUint32(le.AppendUint32(bin, t[0]), t[1]), t[2])
 	}
-	nv := len(mesh.Vertices)
-	aPos := accessor(gltfAccessor{BufferView: view(pos, targetArray), ComponentType: compFloat, Count: nv, Type: "VEC3", Min: lo[:], Max: hi[:]})
-	aNrm := accessor(gltfAccessor{BufferView: view(nrm, targetArray), ComponentType: compFloat, Count: nv, Type: "VEC3"})
-	aIdx := accessor(gltfAccessor{BufferView: view(idx, targetElements), ComponentType: compUint32, Count: 3 * len(mesh.Triangles), Type: "SCALAR"})
+	aIdx := accessor(gltfAccessor{BufferView: end(targetElements), ComponentType: compUint32, Count: 3 * nt, Type: "SCALAR"})
 	doc.Meshes = []gltfMesh{{Name: "prop", Primitives: []gltfPrimitive{{
 		Attributes: map[string]int{"POSITION": aPos, "NORMAL": aNrm}, Indices: aIdx, Material: 0, Mode: modeTriangles}}}}
 
@@ -319,20 +388,28 @@ func buildGLTF(in Input, mesh wire.Mesh, keys []key) (*gltfDoc, []byte) {
 	// one matrix per key and drops the animation when their key counts
 	// differ, reading a missing scale channel as one key) needs all three
 	// with the same keys.
-	var times, trans, rots, scales []byte
+	begin()
 	for _, k := range keys {
-		times = f32(times, k.t)
-		trans = f32(f32(f32(trans, k.p.X), k.p.Y), k.p.Z)
-		q := unitQuatFloat32(k.q)
-		rots = f32(f32(f32(f32(rots, q.Imag), q.Jmag), q.Kmag), q.Real)
-		scales = f32(f32(f32(scales, 1), 1), 1)
+		bin = f32(bin, k.t)
 	}
-	n := len(keys)
-	aT := accessor(gltfAccessor{BufferView: view(times, 0), ComponentType: compFloat, Count: n, Type: "SCALAR",
+	aT := accessor(gltfAccessor{BufferView: end(0), ComponentType: compFloat, Count: n, Type: "SCALAR",
 		Min: []float32{float32(keys[0].t)}, Max: []float32{float32(keys[n-1].t)}})
-	aTr := accessor(gltfAccessor{BufferView: view(trans, 0), ComponentType: compFloat, Count: n, Type: "VEC3"})
-	aRo := accessor(gltfAccessor{BufferView: view(rots, 0), ComponentType: compFloat, Count: n, Type: "VEC4"})
-	aSc := accessor(gltfAccessor{BufferView: view(scales, 0), ComponentType: compFloat, Count: n, Type: "VEC3"})
+	begin()
+	for _, k := range keys {
+		bin = f32(f32(f32(bin, k.p.X), k.p.Y), k.p.Z)
+	}
+	aTr := accessor(gltfAccessor{BufferView: end(0), ComponentType: compFloat, Count: n, Type: "VEC3"})
+	begin()
+	for _, k := range keys {
+		q := unitQuatFloat32(k.q)
+		bin = f32(f32(f32(f32(bin, q.Imag), q.Jmag), q.Kmag), q.Real)
+	}
+	aRo := accessor(gltfAccessor{BufferView: end(0), ComponentType: compFloat, Count: n, Type: "VEC4"})
+	begin()
+	for range keys {
+		bin = f32(f32(f32(bin, 1), 1), 1)
+	}
+	aSc := accessor(gltfAccessor{BufferView: end(0), ComponentType: compFloat, Count: n, Type: "VEC3"})
 	doc.Animations = []gltfAnimation{{Name: "throw",
 		Channels: []gltfChannel{
 			{Sampler: 0, Target: gltfTarget{Node: 0, Path: "translation"}},

@@ -13,6 +13,7 @@ import (
 	"strings"
 
 	"propflight/app/fsutil"
+	"propflight/physics"
 	"propflight/widgets/wire"
 )
 
@@ -21,6 +22,10 @@ const (
 	MinPNGSize = 16   // smallest image side, pixels
 	MaxPNGSize = 8192 // largest image side, pixels
 	MaxOnion   = 24   // most onion-skin frames on each side
+	// MaxPNGImages is the most images one sequence writes: 10000 frames is
+	// nearly seven minutes at 24 fps, and at 1280 x 720 about a gigabyte
+	// of files and a few minutes of work.
+	MaxPNGImages = 10000
 )
 
 // ErrCancelled is returned by an export stopped through its Cancel channel.
@@ -115,6 +120,13 @@ func WritePNGSequence(dir string, in Input, opt PNGOptions, progress func(done, 
 		}
 		mp = &m
 	}
+	if images := pngImages(len(in.Take.Frames), opt.Twos); images > MaxPNGImages {
+		hint := "export on twos or lower the frame rate"
+		if opt.Twos {
+			hint = "lower the frame rate"
+		}
+		return nil, &physics.FieldError{Field: "throw.fps", Msg: fmt.Sprintf("the take needs %d PNG images, more than the %d a sequence may have: %s", images, MaxPNGImages, hint)}
+	}
 	if err := os.MkdirAll(dir, 0o755); err != nil {
 		return nil, err
 	}
@@ -171,6 +183,15 @@ func WritePNGSequence(dir string, in Input, opt PNGOptions, progress func(done, 
 		}
 	}
 	return paths, nil
+}
+
+// pngImages is the number of images of a take of n frames, on ones or on
+// twos.
+func pngImages(n int, twos bool) int {
+	if twos {
+		return (n + 1) / 2
+	}
+	return n
 }
 
 // pngBaseName makes a file-name stem of a take's name.

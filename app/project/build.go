@@ -7,6 +7,7 @@ import (
 	"path/filepath"
 	"strconv"
 	"strings"
+	"unicode/utf8"
 
 	"gonum.org/v1/gonum/spatial/r3"
 
@@ -70,6 +71,9 @@ const (
 //     to "least" ("middle" when the axis is the least axis).
 func (d *Document) Build() (*Scene, error) {
 	b := builder{file: d.File}
+	if err := b.name("name", d.Name); err != nil {
+		return nil, err
+	}
 	sc := &Scene{Name: d.sceneName(), Thresholds: d.Thresholds()}
 	var err error
 	if sc.Prop, err = b.prop(&d.Prop); err != nil {
@@ -120,6 +124,14 @@ func (b *builder) wrap(prefix string, err error) error {
 	return &Error{File: b.file, Field: strings.TrimSuffix(prefix, "."), Msg: err.Error()}
 }
 
+// name checks the length of a name (MaxNameLength characters).
+func (b *builder) name(field, s string) error {
+	if n := utf8.RuneCountInString(s); n > MaxNameLength {
+		return b.fail(field, "at most %d characters (this one has %d)", MaxNameLength, n)
+	}
+	return nil
+}
+
 func deg(x float64) float64 { return x * math.Pi / 180 }
 
 func vec(v Vec3) r3.Vec { return r3.Vec{X: v[0], Y: v[1], Z: v[2]} }
@@ -163,6 +175,14 @@ func (b *builder) within(field string, v Vec3, limit float64, unit string) error
 func (b *builder) prop(p *Prop) (physics.Prop, error) {
 	if len(p.Parts) == 0 {
 		return physics.Prop{}, b.fail("prop.parts", "a prop needs at least one part")
+	}
+	if len(p.Parts) > MaxParts {
+		return physics.Prop{}, b.fail("prop.parts", "at most %d parts (this prop has %d); join small pieces into one part or a mesh", MaxParts, len(p.Parts))
+	}
+	for i := range p.Parts {
+		if err := b.name(index("prop.parts", i)+".name", p.Parts[i].Name); err != nil {
+			return physics.Prop{}, err
+		}
 	}
 	out := physics.Prop{Parts: make([]physics.Part, len(p.Parts))}
 	for i := range p.Parts {

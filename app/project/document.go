@@ -7,6 +7,18 @@ const Format = "propflight/v1"
 // (16 MiB). Real projects are a few kilobytes.
 const MaxFileSize = 16 << 20
 
+// Limits Build enforces, so that every command's time and memory stay
+// bounded (a prop of the kitchen scene has a handful of parts; a mesh
+// part counts as one however many triangles it has):
+//
+//	MaxParts       parts in "prop.parts"
+//	MaxNameLength  characters (Unicode code points) in "name" and in a
+//	               part's "name"
+const (
+	MaxParts      = 1000
+	MaxNameLength = 1000
+)
+
 // Vec3 is a triple of numbers as written in the file: metres for
 // positions and sizes, metres per second for velocities, degrees for
 // rotations.

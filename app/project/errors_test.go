@@ -366,3 +366,42 @@ func TestBuild_ExtremeNumbersNamed(t *testing.T) {
 		}
 	}
 }
+
+// TestBuild_Limits: the documented limits on the part count and on name
+// lengths are refused naming the field, and the limits themselves pass.
+func TestBuild_Limits(t *testing.T) {
+	parts := func(n int) string {
+		p := make([]string, n)
+		for i := range p {
+			p[i] = okPart
+		}
+		return withParts(p...)
+	}
+	named := func(name, partName string) string {
+		return `{"format": "propflight/v1", "name": "` + name + `", "prop": {"parts": [{"name": "` + partName + `", "shape": "box", "size": [0.2, 0.1, 0.05], "mass": 2}]}}`
+	}
+	long := strings.Repeat("é", MaxNameLength+1)
+	for _, tt := range []struct{ src, field string }{
+		{parts(MaxParts + 1), "prop.parts"},
+		{named(long, "head"), "name"},
+		{named("pan", long), "prop.parts[0].name"},
+	} {
+		doc, err := Parse("x.json", []byte(tt.src))
+		if err == nil {
+			_, err = doc.Build()
+		}
+		var pe *Error
+		if !errors.As(err, &pe) || pe.Field != tt.field || !strings.Contains(pe.Msg, "at most") {
+			t.Errorf("%.60s...: %v, want a limit error on %s", tt.src, err, tt.field)
+		}
+	}
+	for _, src := range []string{parts(MaxParts), named(strings.Repeat("é", MaxNameLength), strings.Repeat("é", MaxNameLength))} {
+		doc, err := Parse("x.json", []byte(src))
+		if err == nil {
+			_, err = doc.Build()
+		}
+		if err != nil {
+			t.Errorf("at the limit: %v", err)
+		}
+	}
+}

@@ -47,18 +47,30 @@ func box(p *fpdf.Fpdf, x, y, w, h float64, c rgb) {
 func itoa(n int) string { return strconv.Itoa(n) }
 
 // fitText returns s shortened with "…" so that it is at most w mm wide in
-// the current font.
+// the current font: the longest prefix that fits with the ellipsis, found
+// by bisection on the number of characters (a width never shrinks as
+// characters are added), so the cost is O(n log n) in the length of s, not
+// the O(n^2) of dropping one character at a time. It returns "" when not
+// even "…" fits.
 func fitText(p *fpdf.Fpdf, s string, w float64) string {
 	if p.GetStringWidth(s) <= w {
 		return s
 	}
 	r := []rune(s)
-	for len(r) > 0 {
-		r = r[:len(r)-1]
-		t := string(r) + "…"
-		if p.GetStringWidth(t) <= w {
-			return t
+	// Invariant: the prefix of lo characters fits (lo = 0 may not: checked
+	// at the end), the prefix of hi does not.
+	lo, hi := 0, len(r)
+	for hi-lo > 1 {
+		mid := lo + (hi-lo)/2
+		if p.GetStringWidth(string(r[:mid])+"…") <= w {
+			lo = mid
+		} else {
+			hi = mid
 		}
 	}
-	return ""
+	t := string(r[:lo]) + "…"
+	if p.GetStringWidth(t) > w {
+		return ""
+	}
+	return t
 }

@@ -278,7 +278,7 @@ func (s *sheet) newPage() {
 	s.font("B", sizeRunHead)
 	ink(p, inkSoft)
 	p.SetXY(margin, headTop)
-	p.CellFormat(s.width()*0.6, 4, "Propflight timing sheet · "+s.name, "", 0, "L", false, 0, "")
+	p.CellFormat(s.width()*0.6, 4, fitText(p, "Propflight timing sheet · "+s.name, s.width()*0.6), "", 0, "L", false, 0, "")
 	s.font("", sizeRunHead)
 	p.SetXY(margin+s.width()*0.4, headTop)
 	p.CellFormat(s.width()*0.6, 4, s.sc.Throw.FPS.String()+" fps · "+s.onesOrTwos(), "", 0, "R", false, 0, "")
@@ -301,7 +301,8 @@ func (s *sheet) footer() {
 	s.font("", 7)
 	ink(p, inkSoft)
 	p.SetXY(margin, top+1.2)
-	p.CellFormat(s.width()*0.7, 3.6, s.name+" · frames "+s.frameNo(0)+"–"+s.frameNo(len(s.tk.Frames)-1)+" at "+s.sc.Throw.FPS.String()+" fps", "", 0, "L", false, 0, "")
+	tail := " · frames " + s.frameNo(0) + "–" + s.frameNo(len(s.tk.Frames)-1) + " at " + s.sc.Throw.FPS.String() + " fps"
+	p.CellFormat(s.width()*0.7, 3.6, fitText(p, s.name, s.width()*0.7-p.GetStringWidth(tail))+tail, "", 0, "L", false, 0, "")
 	s.font("B", 7)
 	p.SetXY(margin+s.width()*0.7, top+1.2)
 	p.CellFormat(s.width()*0.3, 3.6, "page "+itoa(p.PageNo())+" of "+nbAlias, "", 0, "R", false, 0, "")
