@@ -38,6 +38,11 @@ type propPanel struct {
 	shape    *widget.Select
 	massMode *widget.RadioGroup
 	partF    fieldSet // number fields of the selected part (rebuilt with it)
+	// A mesh part's controls (see meshpart.go); nil for a primitive.
+	units     *widget.Select
+	up        *widget.RadioGroup
+	hollow    *widget.Check
+	meshFacts *widget.Label
 }
 
 // partKey is what decides which controls the part editor holds.
@@ -45,6 +50,7 @@ type partKey struct {
 	index   int
 	shape   string
 	density bool
+	hollow  bool // a mesh part with a wall
 	parts   int
 }
 
@@ -76,11 +82,15 @@ func newPropPanel(w *Window) *propPanel {
 		p.w.syncing--
 	}
 
-	p.add = widget.NewSelect(physics.ShapeNames(), func(shape string) {
+	p.add = widget.NewSelect(append(physics.ShapeNames(), meshChoice), func(shape string) {
 		if shape == "" {
 			return
 		}
 		p.add.ClearSelected()
+		if shape == meshChoice {
+			p.w.chooseMeshFile(p.addMeshFile, nil)
+			return
+		}
 		p.addPart(shape)
 	})
 	p.add.PlaceHolder = "add a part…"
@@ -162,7 +172,8 @@ func (p *propPanel) syncPart(d *project.Document) {
 		return
 	}
 	part := d.Prop.Parts[p.selected]
-	key := partKey{index: p.selected, shape: part.Shape, density: part.Density != nil, parts: len(d.Prop.Parts)}
+	key := partKey{index: p.selected, shape: part.Shape, density: part.Density != nil,
+		hollow: part.Shape == meshShape && part.WallM != nil, parts: len(d.Prop.Parts)}
 	if key != p.built {
 		p.buildPart(key)
 	}
@@ -186,6 +197,14 @@ func (p *propPanel) syncPart(d *project.Document) {
 		setValue(p.partF[i], *part.Mass)
 	}
 	i++
+	if key.shape == meshShape {
+		p.syncMesh(part)
+		p.factsFrom(p.w.good)
+		if key.hollow {
+			setValue(p.partF[i], *part.WallM)
+			i++
+		}
+	}
 	pos, rot := vecOr(part.Position), vecOr(part.RotationDeg)
 	for k := range 3 {
 		setValue(p.partF[i+k], pos[k])
@@ -213,9 +232,16 @@ func (p *propPanel) buildPart(key partKey) {
 	}
 	p.name.OnSubmitted = func(string) { w.ed.EndMerge() }
 
-	p.shape = widget.NewSelect(physics.ShapeNames(), func(s string) {
+	p.shape = widget.NewSelect(append(physics.ShapeNames(), meshShape), func(s string) {
+		if w.syncing > 0 || s == key.shape {
+			return
+		}
+		if s == meshShape {
+			w.chooseMeshFile(func(path string) { p.meshFromFile(i, path) }, func() { p.resync() })
+			return
+		}
 		w.editAndSync("Change shape to "+s, func(d *project.Document) error {
-			d.Prop.Parts[i] = changeShape(d.Prop.Parts[i], s)
+			d.Prop.Parts[i] = changeShape(resolved(d, i), s)
 			return nil
 		})
 	})
@@ -243,7 +269,7 @@ func (p *propPanel) buildPart(key partKey) {
 			return
 		}
 		w.editAndSync("Give the "+s, func(d *project.Document) error {
-			d.Prop.Parts[i] = useDensity(d.Prop.Parts[i], s == modeDensity)
+			useDensityAt(d, i, s == modeDensity)
 			return nil
 		})
 	})
@@ -267,6 +293,15 @@ func (p *propPanel) buildPart(key partKey) {
 	}
 	amount.SetLog(true)
 	amount.SetSpan(dimensionSpan)
+	var meshObjs []fyne.CanvasObject
+	var wall *widgets.NumberField
+	p.units, p.up, p.hollow, p.meshFacts = nil, nil, nil, nil
+	if key.shape == meshShape {
+		meshObjs = p.meshControls(i, w.ed.Doc().Prop.Parts[i])
+		if key.hollow {
+			wall = p.wallField(i)
+		}
+	}
 	if key.shape == "shell" {
 		p.massMode.Disable()
 	}
@@ -299,12 +334,22 @@ func (p *propPanel) buildPart(key partKey) {
 		note(shapeNote(key.shape)),
 	}
 	objs = append(objs, dims...)
+	objs = append(objs, meshObjs...)
 	objs = append(objs, p.massMode, amount)
 	if key.shape == "shell" {
 		objs = append(objs, note("A thin shell has no volume: give its mass."))
 	}
-	objs = append(objs, heading("Place in the prop"),
-		note("Position of the part's own centre of mass and its turn about the prop's x, then y, then z axis."))
+	if key.shape == meshShape {
+		objs = append(objs, p.hollow)
+		if wall != nil {
+			objs = append(objs, wall, note("The mass lies in a wall this thick over the whole surface (a thin wall: keep it well under the part's size)."))
+		}
+		objs = append(objs, heading("Place in the prop"),
+			note("Where the file's origin sits in the prop and its turn about the prop's x, then y, then z axis (a mesh keeps its own coordinates)."))
+	} else {
+		objs = append(objs, heading("Place in the prop"),
+			note("Position of the part's own centre of mass and its turn about the prop's x, then y, then z axis."))
+	}
 	objs = append(objs, place...)
 	objs = append(objs, turn...)
 	p.partBox.Objects = objs
@@ -330,6 +375,8 @@ func shapeNote(shape string) string {
 		return "Solid; axis along the part's z, point toward +z."
 	case "torus":
 		return "Solid ring: the radius of its centre line and of the tube; axis along the part's z."
+	case meshShape:
+		return "A closed triangle mesh read from a model file (.stl, .obj, .glb, .gltf)."
 	}
 	return ""
 }
@@ -385,6 +432,7 @@ func (p *propPanel) setResult(res editor.Result) {
 	if res.Scene == nil {
 		return
 	}
+	p.factsFrom(res)
 	mp := res.Scene.Mass
 	p.summary.SetText(fmt.Sprintf("%d parts, %s kg in all; centre of mass (%s, %s, %s) m.",
 		len(res.Scene.Prop.Parts), sig(mp.Mass), fixed(mp.CM.X), fixed(mp.CM.Y), fixed(mp.CM.Z)))
