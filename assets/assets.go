@@ -13,7 +13,7 @@ import (
 // file.
 const Demo = "frying-pan"
 
-//go:embed presets/*.json
+//go:embed presets/*.json presets/*.obj
 var presets embed.FS
 
 // PresetNames returns the names of the embedded presets, sorted: the file
@@ -42,4 +42,30 @@ func Preset(name string) ([]byte, error) {
 		}
 	}
 	return nil, fmt.Errorf("no preset named %q (presets: %s)", name, strings.Join(PresetNames(), ", "))
+}
+
+// BuiltinPrefix begins a mesh part's file that names a mesh shipped inside
+// Propflight ("builtin:ladle.obj"), so that a preset's mesh is found
+// wherever the project is saved.
+const BuiltinPrefix = "builtin:"
+
+// Mesh returns the built-in mesh file named name ("ladle.obj"). An unknown
+// name is an error listing the valid ones.
+func Mesh(name string) ([]byte, error) {
+	entries, err := fs.ReadDir(presets, "presets")
+	if err != nil {
+		panic("assets: embedded presets missing: " + err.Error()) // a build bug
+	}
+	var names []string
+	for _, e := range entries {
+		if !strings.HasSuffix(e.Name(), ".json") {
+			names = append(names, e.Name())
+		}
+	}
+	if slices.Contains(names, name) {
+		if data, err := presets.ReadFile(path.Join("presets", name)); err == nil {
+			return data, nil
+		}
+	}
+	return nil, fmt.Errorf("no built-in mesh named %q (built-in meshes: %s)", name, strings.Join(names, ", "))
 }

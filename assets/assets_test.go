@@ -63,3 +63,15 @@ func TestPreset_ReturnsFreshCopy(t *testing.T) {
 		t.Error("Preset shares its bytes with the caller")
 	}
 }
+
+func TestMesh_BuiltinLadle(t *testing.T) {
+	data, err := Mesh("ladle.obj")
+	if err != nil || len(data) == 0 {
+		t.Fatalf("ladle.obj: %v", err)
+	}
+	for _, bad := range []string{"ladle", "ladle.json", "../assets.go", ""} {
+		if _, err := Mesh(bad); err == nil || !strings.Contains(err.Error(), "ladle.obj") {
+			t.Errorf("Mesh(%q): %v", bad, err)
+		}
+	}
+}

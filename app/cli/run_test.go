@@ -307,7 +307,7 @@ func TestRun_ExitCodes(t *testing.T) {
 		{"two files", []string{"check", "a.json", "b.json"}, 2, "more than one FILE"},
 		{"missing file", []string{"check", filepath.Join(dir, "nope.json"), "--json"}, 2, "nope.json: no such file"},
 		{"folder as file", []string{"check", dir}, 2, "is a folder, not a project file"},
-		{"unknown preset", []string{"check", "--preset", "spatula"}, 2, `--preset: no preset named "spatula" (presets: cutting-board, dinner-plate, frying-pan, loaf, rolling-pin)`},
+		{"unknown preset", []string{"check", "--preset", "spatula"}, 2, `--preset: no preset named "spatula" (presets: cutting-board, dinner-plate, frying-pan, ladle, loaf, rolling-pin)`},
 		{"syntax error", []string{"check", writeFile(t, "syn.json", "{\n  \"format\": \"propflight/v1\",\n  \"prop\" {}\n}")}, 2, "syn.json: line 3, column 10: invalid character '{' after object key"},
 		{"negative size", []string{"check", brickWith(t, `[0.2, 0.1, 0.05]`, `[0.2, -0.1, 0.05]`), "--json"}, 2, "edited.json: prop.parts[0].size: must be positive"},
 		{"starts underground", []string{"check", brickWith(t, `"fps": 24,`, `"fps": 24, "ground_y": 2,`)}, 2, "edited.json: throw.release_position: the prop starts at or below the ground"},

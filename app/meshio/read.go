@@ -95,23 +95,27 @@ type Options struct {
 // repeat the file's name, except to say it is missing; the caller names the
 // field or argument that gave it.
 func ReadFile(path string, o Options) ([][3]r3.Vec, error) {
-	scale, ok := 1.0, true
-	if o.Units != "" {
-		scale, ok = UnitScale(o.Units)
-	}
-	if !ok {
-		return nil, fmt.Errorf("%q is not a unit (use m, cm, mm, in or ft)", o.Units)
-	}
-	f, err := FormatOf(path)
-	if err != nil {
+	if _, err := checkOptions(path, o); err != nil {
 		return nil, err
-	}
-	if o.UpZ && (f == GLB || f == GLTF) {
-		return nil, errors.New("a glTF file is always y up: leave up out or set it to y")
 	}
 	data, err := readLimited(path)
 	if err != nil {
 		return nil, err
+	}
+	dir := filepath.Dir(path)
+	return Read(path, data, o, func(uri string) ([]byte, error) { return sideCar(dir, uri) })
+}
+
+// Read reads a mesh file's bytes; name gives the format by its extension.
+// load returns a .gltf file's side-car buffers by their uri as written
+// (nil: only data URIs). See ReadFile.
+func Read(name string, data []byte, o Options, load func(uri string) ([]byte, error)) ([][3]r3.Vec, error) {
+	f, err := checkOptions(name, o)
+	if err != nil {
+		return nil, err
+	}
+	if len(data) > MaxFileBytes {
+		return nil, fmt.Errorf("the file is %s, more than the %s this tool reads", byteSize(int64(len(data))), byteSize(MaxFileBytes))
 	}
 	var tris [][3]r3.Vec
 	switch f {
@@ -122,14 +126,34 @@ func ReadFile(path string, o Options) ([][3]r3.Vec, error) {
 	case GLB:
 		tris, err = ReadGLB(data)
 	case GLTF:
-		dir := filepath.Dir(path)
-		tris, err = ReadGLTF(data, func(uri string) ([]byte, error) { return sideCar(dir, uri) })
+		tris, err = ReadGLTF(data, load)
 	}
 	if err != nil {
 		return nil, err
 	}
+	scale := 1.0
+	if o.Units != "" {
+		scale = units[o.Units]
+	}
 	Transform(tris, scale, o.UpZ)
 	return tris, nil
+}
+
+// checkOptions returns the format of name and checks that o suits it.
+func checkOptions(name string, o Options) (Format, error) {
+	if o.Units != "" {
+		if _, ok := UnitScale(o.Units); !ok {
+			return 0, fmt.Errorf("%q is not a unit (use m, cm, mm, in or ft)", o.Units)
+		}
+	}
+	f, err := FormatOf(name)
+	if err != nil {
+		return 0, err
+	}
+	if o.UpZ && (f == GLB || f == GLTF) {
+		return 0, errors.New("a glTF file is always y up: leave up out or set it to y")
+	}
+	return f, nil
 }
 
 // Transform scales tris by scale (metres per file unit) and, with upZ, turns

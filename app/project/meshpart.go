@@ -8,7 +8,10 @@ import (
 	"sync"
 	"time"
 
+	"gonum.org/v1/gonum/spatial/r3"
+
 	"propflight/app/meshio"
+	"propflight/assets"
 	"propflight/physics"
 	"propflight/physics/mesh"
 )
@@ -18,8 +21,10 @@ import (
 
 // MeshPath returns part i's mesh file as a path to open: its "file"
 // resolved against the folder of projectPath when relative, or as written
-// when absolute. With an empty projectPath a relative file is relative to
-// the working directory. It returns "" when part i is not a mesh with a file.
+// when absolute or built in ("builtin:ladle.obj", a mesh shipped inside
+// Propflight, read with assets.Mesh). With an empty projectPath a relative
+// file is relative to the working directory. It returns "" when part i is
+// not a mesh with a file.
 func (d *Document) MeshPath(projectPath string, i int) string {
 	if i < 0 || i >= len(d.Prop.Parts) || d.Prop.Parts[i].File == nil || *d.Prop.Parts[i].File == "" {
 		return ""
@@ -28,6 +33,9 @@ func (d *Document) MeshPath(projectPath string, i int) string {
 }
 
 func resolve(projectPath, file string) string {
+	if builtin(file) {
+		return file
+	}
 	p := filepath.FromSlash(file)
 	if filepath.IsAbs(p) || projectPath == "" {
 		return filepath.Clean(p)
@@ -62,7 +70,7 @@ func (d *Document) RebasePaths(oldProject, newProject string) {
 	}
 	for i := range d.Prop.Parts {
 		f := d.Prop.Parts[i].File
-		if f == nil || *f == "" || (oldProject != "" && filepath.IsAbs(filepath.FromSlash(*f))) {
+		if f == nil || *f == "" || builtin(*f) || (oldProject != "" && filepath.IsAbs(filepath.FromSlash(*f))) {
 			continue
 		}
 		d.SetMeshPath(newProject, i, d.MeshPath(oldProject, i))
@@ -115,6 +123,9 @@ func (b *builder) meshPart(p *Part, path string, out *physics.Part) error {
 	return nil
 }
 
+// builtin reports whether a mesh file names a mesh shipped inside Propflight.
+func builtin(file string) bool { return strings.HasPrefix(file, assets.BuiltinPrefix) }
+
 func listOr(words []string) string {
 	return strings.Join(words[:len(words)-1], ", ") + " or " + words[len(words)-1]
 }
@@ -146,14 +157,26 @@ var meshCache struct {
 // loadMesh reads and checks the mesh file at path, or returns the cached
 // mesh of the same unchanged file.
 func loadMesh(path string, o meshio.Options) (*mesh.Mesh, []string, error) {
-	abs, err := filepath.Abs(path)
-	if err != nil {
-		abs = path
-	}
-	st, statErr := os.Stat(abs)
+	var data []byte // a built-in mesh's bytes
 	var key meshKey
+	statErr := error(nil)
+	if builtin(path) {
+		var err error
+		if data, err = assets.Mesh(strings.TrimPrefix(path, assets.BuiltinPrefix)); err != nil {
+			return nil, nil, err
+		}
+		key = meshKey{path, int64(len(data)), time.Time{}, o}
+	} else {
+		abs, err := filepath.Abs(path)
+		if err != nil {
+			abs = path
+		}
+		var st os.FileInfo
+		if st, statErr = os.Stat(abs); statErr == nil {
+			key = meshKey{abs, st.Size(), st.ModTime(), o}
+		}
+	}
 	if statErr == nil {
-		key = meshKey{abs, st.Size(), st.ModTime(), o}
 		meshCache.Lock()
 		i := slices.IndexFunc(meshCache.entries, func(e meshEntry) bool { return e.key == key })
 		if i >= 0 {
@@ -164,7 +187,13 @@ func loadMesh(path string, o meshio.Options) (*mesh.Mesh, []string, error) {
 		}
 		meshCache.Unlock()
 	}
-	tris, err := meshio.ReadFile(path, o)
+	var tris [][3]r3.Vec
+	var err error
+	if data != nil {
+		tris, err = meshio.Read(path, data, o, nil)
+	} else {
+		tris, err = meshio.ReadFile(path, o)
+	}
 	if err != nil {
 		return nil, nil, err
 	}

@@ -16,6 +16,7 @@ var presetMotion = map[string]physics.Motion{
 	"dinner-plate":  physics.Wobbling, // oblate, spun about its symmetry axis with a 10 degree tilt
 	"cutting-board": physics.Spinning, // asymmetric, about the least axis: stable
 	"loaf":          physics.Spinning, // asymmetric, a lazy turn about the greatest axis: stable
+	"ladle":         physics.Spinning, // a mesh part, nearly prolate, flipped end over end (handle over bowl)
 }
 
 func TestPresets_VerdictMatchesIntent(t *testing.T) {
