@@ -2,7 +2,10 @@
 // verdict, and throw -> take; the plan (PlanLanding: the spin rates that land
 // a prop axis along a world direction, with their windows) and the spread
 // (SpreadThrows: sampled release errors and the landings they give) are
-// searches over flights that keep only the end of each flight.
+// searches over flights that keep only the end of each flight. The axis map
+// (AxisMapper, MapDirections) judges every spin direction of a prop at once:
+// the verdict depends on the direction only. The spin-to-wobble ratio of an
+// asymmetric prop (ratio.go) is exact, through Carlson's R_J (carlson.go).
 //
 // Frames and units:
 //   - SI inside: metres, kilograms, seconds, radians. Every angle the package
