@@ -49,7 +49,7 @@ func newAxisMapPane(w *Window) *axisMapPane {
 	// the pointer never moves between pointing and clicking.
 	lines := theme.TextSize()*1.3*axisMapHoverLines + 2*theme.InnerPadding()
 	p.content = container.NewBorder(
-		container.NewVBox(heading("Axis map"), note("Every spin direction of this prop, whatever the rate: colour is the motion, darker is a larger excursion, the white line the separatrix.")),
+		container.NewVBox(heading("Axis map"), note("Every spin direction of this prop, at any rate; the ring is this throw.")),
 		container.New(fixedHeight(lines), p.hover), nil, nil, p.view)
 	return p
 }
