@@ -50,3 +50,31 @@ func BenchmarkSpread1000(b *testing.B) {
 		}
 	}
 }
+
+// BenchmarkSpread1000_Tumble: the same spread of a throw 3 degrees off the
+// pan's middle axis (every sample tumbles; the verdict finds each flip).
+func BenchmarkSpread1000_Tumble(b *testing.B) {
+	p, mp, th := panThrow()
+	th.Spin = Spin{Axis: Middle, Tilt: 3 * deg, TiltToward: Least, Rate: 2 * turn}
+	tg := Target{Axis: mp.Axes[Greatest], Dir: r3.Vec{Y: 1}}
+	spec := SpreadSpec{Samples: 1000, Seed: 1, RateSD: 0.05, TiltSD: 2 * deg, SpeedSD: 0.03, AngleSD: 2 * deg,
+		Target: &tg, Tolerance: 10 * deg, End: End{Catch: true, CatchY: 1.5}, Thresholds: DefaultThresholds()}
+	for b.Loop() {
+		if _, err := SpreadThrows(context.Background(), &p, &mp, &th, spec); err != nil {
+			b.Fatal(err)
+		}
+	}
+}
+
+// BenchmarkPlan_TumbleGround: a plan of the tumbling pan to the ground.
+func BenchmarkPlan_TumbleGround(b *testing.B) {
+	p, mp, th := panThrow()
+	th.Spin = Spin{Axis: Middle, Tilt: 3 * deg, TiltToward: Least, Rate: 2 * turn}
+	spec := PlanSpec{Target: Target{Axis: mp.Axes[Greatest], Dir: r3.Vec{Y: 1}}, Tolerance: 10 * deg,
+		RateMin: 0.25 * turn, RateMax: 10 * turn, Thresholds: DefaultThresholds()}
+	for b.Loop() {
+		if _, err := PlanLanding(context.Background(), &p, &mp, &th, spec); err != nil {
+			b.Fatal(err)
+		}
+	}
+}

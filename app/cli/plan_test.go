@@ -3,7 +3,7 @@ package cli
 import (
 	"encoding/json"
 	"math"
-	"os/exec"
+	"runtime"
 	"strings"
 	"testing"
 )
@@ -87,16 +87,13 @@ func TestSpread_JSON_SameSeed(t *testing.T) {
 	if !strings.Contains(c, `"within_tolerance": null`) || !strings.Contains(c, `"error_deg_p50": null`) {
 		t.Errorf("no target:\n%s", c)
 	}
-	// GOMAXPROCS does not change the answer (a child process per setting).
-	for _, procs := range []string{"1", "2"} {
-		cmd := exec.Command("go", append([]string{"run", "../../cmd/propflight"}, args...)...)
-		cmd.Env = append(cmd.Environ(), "GOMAXPROCS="+procs)
-		got, err := cmd.Output()
-		if testing.Short() {
-			break
-		}
-		if err != nil || string(got) != a {
-			t.Errorf("GOMAXPROCS=%s: %v\n%s", procs, err, got)
+	// GOMAXPROCS does not change the answer.
+	for _, procs := range []int{1, 2} {
+		old := runtime.GOMAXPROCS(procs)
+		_, got, _ := run(t, args...)
+		runtime.GOMAXPROCS(old)
+		if got != a {
+			t.Errorf("GOMAXPROCS=%d:\n%s", procs, got)
 		}
 	}
 }

@@ -1,9 +1,12 @@
 package ui
 
 import (
+	"bytes"
 	"context"
 	"image/color"
 	"math"
+	"os"
+	"path/filepath"
 	"strings"
 	"testing"
 	"time"
@@ -235,5 +238,26 @@ func TestLandCharts(t *testing.T) {
 	// Two points 1 m apart in x, framed with a 1.2 margin: at 50 +- 41.7 px.
 	if c := color.NRGBAModel.Convert(sc.At(8, 50)).(color.NRGBA); c == chartBack {
 		t.Errorf("no point drawn at the left landing (%v)", c)
+	}
+}
+
+// TestLand_Export_SheetHasLandingPage: with the tab's plan and spread
+// shown, the exported timing sheet has one more page, carrying them.
+func TestLand_Export_SheetHasLandingPage(t *testing.T) {
+	w, p := openLand(t)
+	dir := t.TempDir()
+	pages := func(name string) int {
+		t.Helper()
+		b, err := os.ReadFile(filepath.Join(dir, name))
+		if err != nil {
+			t.Fatal(err)
+		}
+		return bytes.Count(b, []byte("/Type /Page\n")) + bytes.Count(b, []byte("/Type /Page "))
+	}
+	w.runExport(sheetJob("a4"), filepath.Join(dir, "with.pdf"), w.good)
+	p.onSheet.SetChecked(false)
+	w.runExport(sheetJob("a4"), filepath.Join(dir, "without.pdf"), w.good)
+	if a, b := pages("with.pdf"), pages("without.pdf"); a != b+1 || b == 0 {
+		t.Errorf("%d pages with the landing page, %d without", a, b)
 	}
 }
