@@ -196,7 +196,9 @@ func (pl *planner) cost(r float64) float64 {
 // end of the flight (d/dr of Q_1(r t) turns the axis at most t |omega_1|
 // per unit rate, with |omega_1| the unit-rate motion's largest angular
 // speed), so that a tumble's irregular error curve is bracketed too; each bracket is then refined, and
-// each window's edges root-found. ctx may cancel the search (nil: never).
+// each window's edges root-found. The grid holds at least 64 and at most
+// MaxPlanRates rates; at the cap a very fast or long range is sampled more
+// coarsely than that rule. ctx may cancel the search (nil: never).
 func PlanLanding(ctx context.Context, p *Prop, mp *MassProps, th *Throw, spec PlanSpec) (*Plan, error) {
 	if err := spec.Validate(); err != nil {
 		return nil, err

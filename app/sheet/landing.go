@@ -56,7 +56,8 @@ func (s *sheet) landingPage() error {
 	if sp := l.Spread; sp != nil {
 		y = s.section(x, y, w, "Spread: "+plural(sp.Samples, "sampled throw")+" (seed "+fmt.Sprint(sp.Seed)+")")
 		e := l.Errors
-		figs := []item{{"Release errors (sd)", "spin rate " + fixed(100*e.RateSD, 1) + " %, spin direction " + fixed(deg(e.TiltSD), 1) +
+		tps := s.sc.Throw.Spin.Rate / (2 * math.Pi)
+		figs := []item{{"Throw sampled", "the project's: spinning " + fixed(tps, 4) + " turns/s (" + fixed(fps/tps, 2) + " frames per turn)"}, {"Release errors (sd)", "spin rate " + fixed(100*e.RateSD, 1) + " %, spin direction " + fixed(deg(e.TiltSD), 1) +
 			"° toward a random side, release speed " + fixed(100*e.SpeedSD, 1) + " %, release angle " + fixed(deg(e.AngleSD), 1) + "°"}}
 		if sp.HasTarget {
 			figs = append(figs,
