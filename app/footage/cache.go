@@ -4,19 +4,27 @@ import (
 	"container/list"
 	"fmt"
 	"image"
+	"strconv"
+	"strings"
 	"sync"
 )
 
-// frameCache keeps decoded frames, least recently used first out, with
-// the total of their pixel buffers (imageBytes) never above capBytes. A
-// frame bigger than the whole cap is returned but not kept. Concurrent
-// requests for a frame that is being decoded wait for that decode instead
-// of starting another. Errors are not cached: a frame that failed is tried
-// again next time (the file may have been fixed).
+// frameCache keeps decoded frames, least recently used first out. It is a
+// budget for decoding too, not only for keeping: before a frame is decoded
+// its cost (the bytes the decoder will allocate, from the declared size) is
+// reserved, evicting older frames or waiting for other decodes to finish,
+// so that the cached frames plus the decodes in flight never need more
+// than capBytes. A frame whose cost is over the whole cap is refused
+// (Open refuses such footage first). Concurrent requests for a frame that
+// is being decoded wait for that decode instead of starting another.
+// Errors are not cached: a frame that failed is tried again next time (the
+// file may have been fixed).
 type frameCache struct {
 	mu       sync.Mutex
+	room     *sync.Cond // signalled when a reservation is released
 	capBytes int64
-	used     int64
+	used     int64      // bytes of the cached frames (imageBytes)
+	reserved int64      // bytes reserved by decodes in flight
 	order    *list.List // front: most recently used; values *cacheEntry
 	entries  map[int]*list.Element
 	pending  map[int]*pendingLoad
@@ -36,11 +44,32 @@ type pendingLoad struct {
 }
 
 func newFrameCache(capBytes int64) *frameCache {
-	return &frameCache{capBytes: capBytes, order: list.New(), entries: map[int]*list.Element{}, pending: map[int]*pendingLoad{}}
+	c := &frameCache{capBytes: capBytes, order: list.New(), entries: map[int]*list.Element{}, pending: map[int]*pendingLoad{}}
+	c.room = sync.NewCond(&c.mu)
+	return c
 }
 
-// get returns frame i from the cache, or calls load once to make it.
-func (c *frameCache) get(i int, load func() (image.Image, error)) (image.Image, error) {
+// errOverCap is returned by get for a decode whose cost is over the cap.
+type errOverCap struct{ cost, cap int64 }
+
+func (e *errOverCap) Error() string {
+	return fmt.Sprintf("decoding it needs %s, more than the footage memory cap (%s)", mib(e.cost), mib(e.cap))
+}
+
+// mib formats a byte count in MiB, "12.5 MiB", or in bytes below 1 MiB.
+func mib(n int64) string {
+	if n < 1<<20 {
+		return strconv.FormatInt(n, 10) + " bytes"
+	}
+	return strings.TrimSuffix(strings.TrimRight(fmt.Sprintf("%.1f", float64(n)/(1<<20)), "0"), ".") + " MiB"
+}
+
+// get returns frame i from the cache, or calls load once to make it after
+// reserving cost bytes for the decode.
+func (c *frameCache) get(i int, cost int64, load func() (image.Image, error)) (image.Image, error) {
+	if cost > c.capBytes {
+		return nil, &errOverCap{cost, c.capBytes}
+	}
 	c.mu.Lock()
 	if el, ok := c.entries[i]; ok {
 		c.order.MoveToFront(el)
@@ -56,18 +85,42 @@ func (c *frameCache) get(i int, load func() (image.Image, error)) (image.Image, 
 	p := &pendingLoad{done: make(chan struct{})}
 	c.pending[i] = p
 	c.loads++
+	// Reserve the decode's cost: evict the least recently used frames, and
+	// wait for other decodes while even that leaves too little room.
+	for c.used+c.reserved+cost > c.capBytes {
+		if !c.evictOne() {
+			c.room.Wait()
+		}
+	}
+	c.reserved += cost
 	c.mu.Unlock()
 
 	p.img, p.err = safeLoad(load)
 
 	c.mu.Lock()
+	c.reserved -= cost
 	delete(c.pending, i)
 	if p.err == nil {
 		c.put(i, p.img)
 	}
+	c.room.Broadcast()
 	c.mu.Unlock()
 	close(p.done)
 	return p.img, p.err
+}
+
+// evictOne drops the least recently used frame; false when none is cached.
+// c.mu must be held.
+func (c *frameCache) evictOne() bool {
+	back := c.order.Back()
+	if back == nil {
+		return false
+	}
+	e := back.Value.(*cacheEntry)
+	c.order.Remove(back)
+	delete(c.entries, e.index)
+	c.used -= e.bytes
+	return true
 }
 
 // safeLoad calls load, turning a panic into an error so that waiting
@@ -82,10 +135,11 @@ func safeLoad(load func() (image.Image, error)) (img image.Image, err error) {
 }
 
 // put stores img as frame i, evicting the least recently used frames
-// until it fits. c.mu must be held.
+// until it fits beside the decodes in flight; a frame that cannot fit is
+// not kept. c.mu must be held.
 func (c *frameCache) put(i int, img image.Image) {
 	n := imageBytes(img)
-	if n > c.capBytes {
+	if n+c.reserved > c.capBytes {
 		return
 	}
 	if el, ok := c.entries[i]; ok { // cannot happen while pending guards i; kept for safety
@@ -93,12 +147,7 @@ func (c *frameCache) put(i int, img image.Image) {
 		c.order.Remove(el)
 		delete(c.entries, i)
 	}
-	for c.used+n > c.capBytes {
-		back := c.order.Back()
-		e := back.Value.(*cacheEntry)
-		c.order.Remove(back)
-		delete(c.entries, e.index)
-		c.used -= e.bytes
+	for c.used+c.reserved+n > c.capBytes && c.evictOne() {
 	}
 	c.entries[i] = c.order.PushFront(&cacheEntry{index: i, img: img, bytes: n})
 	c.used += n

@@ -2,6 +2,7 @@ package footage
 
 import (
 	"bytes"
+	"errors"
 	"fmt"
 	"image"
 	"io"
@@ -33,11 +34,10 @@ type Options struct {
 	// MaxPixels refuses any frame whose header declares more pixels than
 	// this (width x height). Zero or less means DefaultMaxPixels.
 	MaxPixels int
-	// CacheBytes caps the memory of decoded frames kept for reuse, in
-	// bytes. Zero or less means DefaultCacheBytes. A GIF's frames are also
-	// held as palette indices (one byte a pixel) for the life of the
-	// sequence: Open refuses a GIF file larger than CacheBytes, or one
-	// whose frames would need more than CacheBytes that way.
+	// CacheBytes caps the memory of the footage, in bytes: decoded frames
+	// kept for reuse and decodes in flight; for a GIF also its file, its
+	// frame index and its checkpoints. Zero or less means
+	// DefaultCacheBytes.
 	CacheBytes int64
 }
 
@@ -45,8 +45,10 @@ type Options struct {
 // demand. It is safe for concurrent use.
 type Sequence struct {
 	path   string
-	names  []string // display name of each frame (Name)
+	n      int      // number of frames
+	names  []string // folder: display name of each frame (Name)
 	files  []string // folder: path of each frame file
+	costs  []int64  // folder: bytes decoding each frame allocates (decodeCost)
 	w, h   int
 	fps    physics.Rate
 	maxPix int
@@ -65,9 +67,18 @@ type Sequence struct {
 // frame's is refused with an error naming the file. Pixels are decoded
 // lazily by Frame.
 //
-// A GIF's frames are decoded at once (image/gif DecodeAll) after its
-// header and every image descriptor were checked against the limits; Frame
-// composites them onto the logical screen honouring each frame's disposal.
+// A GIF is read whole (it may take at most half of Options.CacheBytes) and
+// its blocks indexed (a broken structure is refused); Frame decodes its
+// frames one at a time as it composites them onto the logical screen,
+// honouring each frame's disposal (gif.go).
+//
+// Memory: Options.CacheBytes bounds what the footage holds at any time,
+// decodes in flight included: each frame's decode cost is worked out from
+// its declared size before it is decoded (decodeCost) and reserved in the
+// cache, and a frame (or GIF) that could not be shown within the cap is
+// refused by Open. Open also sets the process's soft memory limit
+// (limitProcessMemory), so that the garbage of frames decoded and evicted
+// is collected before the process grows past the cap.
 func Open(path string, opt Options) (*Sequence, error) {
 	if opt.FPS != (physics.Rate{}) && !opt.FPS.Valid() {
 		return nil, &Error{Field: "fps", Msg: "must be a positive frame rate of at most 10000 frames per second"}
@@ -83,6 +94,7 @@ func Open(path string, opt Options) (*Sequence, error) {
 		return nil, &Error{File: path, Msg: "cannot open the footage: " + errText(err), Err: err}
 	}
 	s := &Sequence{path: path, maxPix: opt.MaxPixels, cache: newFrameCache(opt.CacheBytes)}
+	limitProcessMemory(opt.CacheBytes)
 	if fi.IsDir() {
 		err = s.openFolder(path)
 	} else {
@@ -115,17 +127,14 @@ func (s *Sequence) openFile(path string, opt Options) error {
 	if _, err := f.Seek(0, io.SeekStart); err != nil {
 		return &Error{File: path, Msg: "cannot read: " + errText(err), Err: err}
 	}
-	g, err := loadGIF(path, f, opt.MaxPixels, opt.CacheBytes)
+	g, cacheBytes, err := loadGIF(path, f, opt.MaxPixels, opt.CacheBytes)
 	if err != nil {
 		return err
 	}
 	s.gif = g
 	s.w, s.h = g.w, g.h
-	base := filepath.Base(path)
-	s.names = make([]string, len(g.frames))
-	for i := range g.frames {
-		s.names[i] = fmt.Sprintf("%s#%d", base, i)
-	}
+	s.n = len(g.frames)
+	s.cache = newFrameCache(cacheBytes)
 	return nil
 }
 
@@ -133,7 +142,7 @@ func (s *Sequence) openFile(path string, opt Options) error {
 func (s *Sequence) Path() string { return s.path }
 
 // Len returns the number of frames.
-func (s *Sequence) Len() int { return len(s.names) }
+func (s *Sequence) Len() int { return s.n }
 
 // Size returns the frame size in pixels (a GIF's logical screen).
 func (s *Sequence) Size() (w, h int) { return s.w, s.h }
@@ -145,8 +154,11 @@ func (s *Sequence) FPS() physics.Rate { return s.fps }
 // Name returns the display name of frame i: the file name for a folder,
 // "clip.gif#i" for a GIF; "" when i is out of range.
 func (s *Sequence) Name(i int) string {
-	if i < 0 || i >= len(s.names) {
+	if i < 0 || i >= s.n {
 		return ""
+	}
+	if s.gif != nil {
+		return fmt.Sprintf("%s#%d", filepath.Base(s.path), i)
 	}
 	return s.names[i]
 }
@@ -167,7 +179,7 @@ func (s *Sequence) FrameAt(t float64, offset int) (int, bool) {
 		return 0, false
 	}
 	f := math.Floor(t*s.fps.FPS()+1e-9) + float64(offset)
-	if !(f >= 0 && f < float64(len(s.names))) {
+	if !(f >= 0 && f < float64(s.n)) {
 		return 0, false
 	}
 	return int(f), true
@@ -179,15 +191,25 @@ func (s *Sequence) FrameAt(t float64, offset int) (int, bool) {
 // file; the other frames stay usable. Frame is safe for concurrent use, and
 // concurrent calls for the same frame decode it once.
 func (s *Sequence) Frame(i int) (image.Image, error) {
-	if i < 0 || i >= len(s.names) {
-		return nil, &Error{File: s.path, Msg: fmt.Sprintf("frame %d is outside the footage (frames 0 to %d)", i, len(s.names)-1)}
+	if i < 0 || i >= s.n {
+		return nil, &Error{File: s.path, Msg: fmt.Sprintf("frame %d is outside the footage (frames 0 to %d)", i, s.n-1)}
 	}
-	return s.cache.get(i, func() (image.Image, error) {
-		if s.gif != nil {
-			return s.gif.composite(i, s.cache)
+	if s.gif != nil {
+		img, err := s.cache.get(i, s.gif.compositeCost(), func() (image.Image, error) { return s.gif.composite(i, s.cache) })
+		if err != nil {
+			var fe *Error
+			if !errors.As(err, &fe) {
+				err = &Error{File: s.Name(i), Msg: "cannot decode the GIF: " + err.Error(), Err: err}
+			}
 		}
-		return decodeFrame(s.files[i], s.w, s.h, s.maxPix)
-	})
+		return img, err
+	}
+	img, err := s.cache.get(i, s.costs[i], func() (image.Image, error) { return decodeFrame(s.files[i], s.w, s.h, s.maxPix, s.costs[i]) })
+	var oc *errOverCap
+	if errors.As(err, &oc) {
+		err = &Error{File: s.files[i], Msg: oc.Error(), Err: err}
+	}
+	return img, err
 }
 
 // errText returns the message of a file-system error without the path,

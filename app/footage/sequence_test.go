@@ -467,8 +467,8 @@ func TestOpen_BadGIF(t *testing.T) {
 		t.Errorf("huge GIF: %v", err)
 	}
 
-	// Frames that together need more than the memory cap: four uniform
-	// 100 x 100 frames compress to a small file but need 40000 bytes.
+	// A GIF that cannot be shown within the memory cap: a 100 x 100
+	// composite alone is 40000 bytes.
 	big := filepath.Join(dir, "big.gif")
 	g := &gif.GIF{Config: image.Config{ColorModel: gifPalette, Width: 100, Height: 100}}
 	for i := range 4 {
@@ -481,7 +481,7 @@ func TestOpen_BadGIF(t *testing.T) {
 	if buf.Len() >= 20000 {
 		t.Fatalf("test GIF is %d bytes; it must be smaller than the cap below", buf.Len())
 	}
-	if _, err := Open(big, Options{CacheBytes: 20000}); err == nil || !strings.Contains(err.Error(), "40000 pixels") {
+	if _, err := Open(big, Options{CacheBytes: 20000}); err == nil || !strings.Contains(err.Error(), "its 4 frames of 100x100 pixels need") {
 		t.Errorf("GIF over the cap: %v", err)
 	}
 	// No positive delay: the default rate.
