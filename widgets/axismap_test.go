@@ -137,3 +137,13 @@ func BenchmarkAxisMap_SliderDrag(b *testing.B) {
 		axisview.Render(physics.NewAxisMapper(&mp, physics.DefaultThresholds()), 360, 260, axisview.Options{Scale: 1})
 	}
 }
+
+// TestAxisMap_Resize_RedrawsAtNewSize: a new size gets an image drawn at
+// that size, not the old one stretched.
+func TestAxisMap_Resize_RedrawsAtNewSize(t *testing.T) {
+	m, _ := axisMapWindow(t)
+	m.Resize(fyne.NewSize(400, 260))
+	if b := m.img.Image.Bounds(); b.Dx() != 400 || b.Dy() != 260 {
+		t.Errorf("image %v after a resize to 400 x 260", b)
+	}
+}

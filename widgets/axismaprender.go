@@ -31,13 +31,24 @@ func (r *axisMapRenderer) MinSize() fyne.Size { return fyne.NewSize(axisMapMinWi
 
 func (r *axisMapRenderer) Objects() []fyne.CanvasObject { return r.objects }
 
+// Layout sizes the image and asks for one drawn at the new pixel size
+// (the old one is shown stretched until it comes).
 func (r *axisMapRenderer) Layout(size fyne.Size) {
 	r.m.img.Move(fyne.NewPos(0, 0))
 	r.m.img.Resize(size)
+	r.requestImage()
 	r.place()
 }
 
 func (r *axisMapRenderer) Refresh() {
+	r.requestImage()
+	r.place()
+	canvas.Refresh(r.m)
+}
+
+// requestImage asks for the map at the widget's pixel size, or hides the
+// image when there is no prop or no room.
+func (r *axisMapRenderer) requestImage() {
 	m := r.m
 	if l, _, ok := m.layout(); ok {
 		m.request(drawJob{mapper: m.mapper, w: l.W, h: l.H, scale: l.Scale})
@@ -45,8 +56,6 @@ func (r *axisMapRenderer) Refresh() {
 	} else {
 		m.img.Hide()
 	}
-	r.place()
-	canvas.Refresh(m)
 }
 
 // place puts the rings at the throw's direction and the hovered one.
