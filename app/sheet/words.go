@@ -158,6 +158,16 @@ func partDims(p *physics.Part) string {
 		return "radius " + m(p.Radius) + ", height " + m(p.Height) + " m"
 	case physics.Torus:
 		return "radius " + m(p.Radius) + ", tube " + m(p.TubeRadius) + " m"
+	case physics.MeshShape:
+		if p.Mesh == nil {
+			break
+		}
+		lo, hi := p.Mesh.Bounds()
+		s := itoa(len(p.Mesh.T)) + " triangles in " + m(hi.X-lo.X) + " × " + m(hi.Y-lo.Y) + " × " + m(hi.Z-lo.Z) + " m"
+		if p.Wall > 0 {
+			s += ", wall " + m(p.Wall) + " m"
+		}
+		return s
 	}
 	return "—"
 }

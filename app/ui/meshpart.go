@@ -4,6 +4,7 @@ import (
 	"fmt"
 	"math"
 	"path/filepath"
+	"strconv"
 	"strings"
 
 	"fyne.io/fyne/v2"
@@ -277,7 +278,7 @@ func (p *propPanel) meshControls(i int, part project.Part) []fyne.CanvasObject {
 			return nil
 		})
 	})
-	upNote := "The file's +y is the prop's up."
+	upNote := "Up y: the file's +y is the prop's up. Up z (common from CAD): the file's +z is up and its +y points away from the front view (−z)."
 	if isGLTF(file) {
 		upNote = "glTF files are always y up."
 	}
@@ -287,7 +288,7 @@ func (p *propPanel) meshControls(i int, part project.Part) []fyne.CanvasObject {
 		container.NewGridWithColumns(2,
 			container.NewBorder(nil, nil, widget.NewLabel("units"), nil, p.units),
 			container.NewBorder(nil, nil, widget.NewLabel("up"), nil, p.up)),
-		note(upNote + " z up: the file's +z becomes up and its +y points away (-z)."),
+		note(upNote),
 		p.meshFacts,
 	}
 }
@@ -335,10 +336,30 @@ func (p *propPanel) factsFrom(res editor.Result) {
 	lo, hi := pt.Mesh.Bounds()
 	span := r3.Sub(hi, lo)
 	triangles, volume, area, hollow := len(pt.Mesh.T), pt.Mesh.Solid().Measure, pt.Mesh.Surface().Measure, pt.Wall > 0
-	size := fmt.Sprintf("%s × %s × %s m", sig(span.X), sig(span.Y), sig(span.Z))
-	amount := fmt.Sprintf("volume %s cm³", sig(volume*1e6))
+	unit, k := "cm", 100.0
+	if math.Max(span.X, math.Max(span.Y, span.Z)) >= 1 {
+		unit, k = "m", 1
+	}
+	size := fmt.Sprintf("%s × %s × %s %s", meshNumber(k*span.X), meshNumber(k*span.Y), meshNumber(k*span.Z), unit)
+	amount := "volume " + meshNumber(volume*1e6) + " cm³"
+	if volume >= 1e-3 {
+		amount = "volume " + meshNumber(volume*1e3) + " L"
+	}
 	if hollow {
-		amount = fmt.Sprintf("surface %s cm²", sig(area*1e4))
+		amount = "surface " + meshNumber(area*1e4) + " cm²"
+		if area >= 1 {
+			amount = "surface " + meshNumber(area) + " m²"
+		}
 	}
 	p.meshFacts.SetText(fmt.Sprintf("%d triangles, %s, %s.", triangles, size, amount))
+}
+
+// meshNumber writes x with three significant figures and no exponent
+// (0.0123, 1.23, 123, 12300).
+func meshNumber(x float64) string {
+	if x == 0 || math.IsNaN(x) || math.IsInf(x, 0) {
+		return strconv.FormatFloat(x, 'f', 0, 64)
+	}
+	d := max(0, 2-int(math.Floor(math.Log10(math.Abs(x)))))
+	return strconv.FormatFloat(x, 'f', d, 64)
 }
