@@ -16,9 +16,9 @@ import (
 	"propflight/physics"
 )
 
-// Version is the program version "propflight version" prints; release
-// builds set it with -ldflags "-X propflight/app/cli.Version=...".
-var Version = "0.1.0-dev"
+// Version is the program version "propflight version" prints: the one in
+// assets/VERSION.
+var Version = assets.Version
 
 // Exit statuses of Run.
 const (

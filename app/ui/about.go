@@ -5,10 +5,13 @@ import (
 	"fyne.io/fyne/v2/container"
 	"fyne.io/fyne/v2/dialog"
 	"fyne.io/fyne/v2/widget"
+
+	"propflight/assets"
 )
 
-// Version is the program's version, as in FyneApp.toml.
-const Version = "0.1.0"
+// Version is the program's version (assets/VERSION, which FyneApp.toml
+// and the Debian archive agree with).
+var Version = assets.Version
 
 // Tagline says in one line what Propflight does.
 const Tagline = "Tells you whether a thrown prop will spin, tumble or wobble, and times its flight frame by frame."

@@ -8,10 +8,12 @@ import (
 	"os"
 	"runtime"
 
+	"fyne.io/fyne/v2"
 	"fyne.io/fyne/v2/app"
 
 	"propflight/app/cli"
 	"propflight/app/ui"
+	"propflight/assets"
 	_ "propflight/internal/locale" // before Fyne reads the locale: see its doc
 )
 
@@ -24,7 +26,9 @@ func main() {
 		if runtime.GOOS == "linux" && os.Getenv("DISPLAY") == "" && os.Getenv("WAYLAND_DISPLAY") == "" {
 			return errNoDisplay
 		}
-		return ui.Run(app.NewWithID("dev.propflight.app"), path)
+		a := app.NewWithID("dev.propflight.app")
+		a.SetIcon(fyne.NewStaticResource("propflight.png", assets.Icon))
+		return ui.Run(a, path)
 	}
 	os.Exit(cli.Run(os.Args[1:], os.Stdout, os.Stderr, openWindow))
 }
