@@ -82,7 +82,7 @@ package: deps
 	$(MAKE) --no-print-directory install DESTDIR=$(CURDIR)/dist/deb PREFIX=/usr GOFLAGS="$(GOFLAGS) -trimpath"
 	mkdir -p dist/deb/DEBIAN
 	sed -e 's/@VERSION@/$(VERSION)/' -e "s/@SIZE@/$$(du -sk dist/deb/usr | cut -f1)/" packaging/debian-control > dist/deb/DEBIAN/control
-	dpkg-deb --root-owner-group -Zxz --build dist/deb $(DEB)
+	dpkg-deb --root-owner-group -Zgzip --build dist/deb $(DEB)
 	@echo "propflight: built $(DEB)"
 
 # check-package: the menu entry and metainfo validate, and the archive's
