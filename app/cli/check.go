@@ -172,6 +172,14 @@ func wrap(text, indent string, width int) []string {
 	return append(lines, line)
 }
 
+// partName is a part's name for the summary, "(unnamed)" when empty.
+func partName(name string) string {
+	if name == "" {
+		return "(unnamed)"
+	}
+	return name
+}
+
 // label is the width of the left column of the summary.
 const label = "%-16s"
 
@@ -190,6 +198,18 @@ func writeSummary(w io.Writer, f *flight) {
 		parts = "part"
 	}
 	row("Prop", "%d %s, mass %s kg", len(sc.Prop.Parts), parts, num(mp.Mass))
+	for _, pt := range sc.Prop.Parts {
+		if pt.Shape == physics.MeshShape && pt.Mesh != nil {
+			kind := "solid"
+			if pt.Wall > 0 {
+				kind = fmt.Sprintf("hollow, wall %s m", num(pt.Wall))
+			}
+			row("", "%s: mesh of %d triangles, %s", printable.String(partName(pt.Name)), len(pt.Mesh.T), kind)
+		}
+	}
+	for _, n := range sc.Notes {
+		row("Note", "%s", printable.String(n))
+	}
 	row("Centre of mass", "%s m, prop frame", vecText(mp.CM))
 	p("Principal moments (kg m^2) and axes (unit vectors in the prop frame):")
 	for i := range 3 {
