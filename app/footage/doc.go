@@ -23,10 +23,16 @@
 //
 // Limits: Open reads every frame's header first ([image.DecodeConfig],
 // a cheap read) and refuses a frame that declares more than
-// Options.MaxPixels pixels, naming the file, so a hostile or broken header
-// cannot make the program allocate gigabytes. Decoded frames are kept in a
-// least-recently-used cache bounded by Options.CacheBytes; [Sequence.Frame]
-// is safe for concurrent use.
+// Options.MaxPixels pixels or a side over MaxMarkCoord, naming the file, so
+// a hostile or broken header cannot make the program allocate gigabytes.
+// Options.CacheBytes bounds the footage's memory in the process: decoded
+// frames are kept in a least-recently-used cache that also reserves each
+// decode's cost (from the declared size) before it starts, a GIF is decoded
+// a frame at a time with checkpoints, and Open sets a soft memory limit
+// for the process (memlimit.go) so that garbage is collected in time.
+// [Sequence.Frame] is safe for concurrent use. Marks files are read up to
+// MaxMarksFileBytes; marks must lie inside the image where it is known
+// ([CheckBounds]).
 //
 // Every problem with a file or a value is an [*Error] naming the file and,
 // where there is one, the line and the column or option:

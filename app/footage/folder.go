@@ -183,10 +183,14 @@ func jpegProgressive(head []byte) bool {
 	return true
 }
 
-// checkSize refuses an empty size or one over maxPix pixels.
+// checkSize refuses an empty size, one over maxPix pixels or one with a
+// side over MaxMarkCoord.
 func checkSize(path string, w, h, maxPix int) error {
 	if w <= 0 || h <= 0 {
 		return &Error{File: path, Msg: fmt.Sprintf("declares an empty image (%dx%d pixels)", w, h)}
+	}
+	if float64(max(w, h)) > MaxMarkCoord {
+		return &Error{File: path, Msg: fmt.Sprintf("declares %dx%d pixels; a side may be at most %g pixels", w, h, MaxMarkCoord)}
 	}
 	if int64(w)*int64(h) > int64(maxPix) {
 		return &Error{File: path, Msg: fmt.Sprintf("declares %dx%d pixels (%s megapixels); the limit is %s megapixels",

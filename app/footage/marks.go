@@ -29,12 +29,41 @@ const (
 	// frames is over four days at 24 fps, so anything beyond is a typing
 	// slip (and keeps n^2 in the fits far from float64 trouble).
 	MaxMarkFrame = 10_000_000
-	// MaxMarkCoord bounds |x| and |y| of a mark, pixels: far beyond any
-	// frame Open accepts, so only typing slips are refused.
-	MaxMarkCoord = 1e9
+	// MaxMarkCoord bounds |x| and |y| of a mark, pixels: Open refuses a
+	// frame with a side over it, so a mark beyond it is outside any
+	// footage (a typing slip). Where the footage is known, marks must be
+	// inside its image (CheckBounds).
+	MaxMarkCoord = 1e6
 	// MaxMarks is the most rows ParseMarks reads.
 	MaxMarks = 1_000_000
+	// MaxMarksFileBytes is the largest marks file ParseMarks reads: 64 MiB,
+	// over 60 bytes for each of MaxMarks rows.
+	MaxMarksFileBytes = 64 << 20
 )
+
+// errMarksTooLarge is the read error of a marks file over MaxMarksFileBytes.
+var errMarksTooLarge = errors.New("the marks file is larger than 64 MiB")
+
+// capReader reads at most n bytes from r, then fails with errMarksTooLarge.
+type capReader struct {
+	r io.Reader
+	n int64
+}
+
+func (c *capReader) Read(p []byte) (int, error) {
+	if c.n <= 0 {
+		if k, _ := c.r.Read(make([]byte, 1)); k > 0 {
+			return 0, errMarksTooLarge
+		}
+		return 0, io.EOF
+	}
+	if int64(len(p)) > c.n {
+		p = p[:c.n]
+	}
+	k, err := c.r.Read(p)
+	c.n -= int64(k)
+	return k, err
+}
 
 // markColumns are the column names of a marks file, in order.
 var markColumns = [...]string{"frame", "x", "y", "x2", "y2"}
@@ -46,12 +75,13 @@ var markColumns = [...]string{"frame", "x", "y", "x2", "y2"}
 // lines, lines starting with '#', spaces around fields and a UTF-8 byte
 // order mark are allowed. Frames are whole numbers from 0 to MaxMarkFrame,
 // each marked once; coordinates finite numbers of at most MaxMarkCoord
-// pixels. The marks are returned in file order.
+// pixels. A file over MaxMarksFileBytes is refused. The marks are returned
+// in file order.
 //
 // Errors are [*Error] naming the file, the line and the column, such as
 // "marks.csv: line 4: x: not a number".
 func ParseMarks(name string, r io.Reader) ([]Mark, error) {
-	br := bufio.NewReader(r)
+	br := bufio.NewReader(&capReader{r: r, n: MaxMarksFileBytes})
 	if b, err := br.Peek(3); err == nil && string(b) == "\uFEFF" {
 		br.Discard(3)
 	}
@@ -68,6 +98,9 @@ func ParseMarks(name string, r io.Reader) ([]Mark, error) {
 			break
 		}
 		if err != nil {
+			if errors.Is(err, errMarksTooLarge) {
+				return nil, &Error{File: name, Msg: errMarksTooLarge.Error() + " (at most " + strconv.Itoa(MaxMarks) + " marks)", Err: err}
+			}
 			var pe *csv.ParseError
 			if errors.As(err, &pe) {
 				return nil, &Error{File: name, Line: pe.Line, Msg: pe.Err.Error(), Err: err}

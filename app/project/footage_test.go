@@ -56,7 +56,7 @@ func TestParse_FootageErrors(t *testing.T) {
 		{"negative frame", withMark(`{"frame": -1, "x": 1, "y": 2}`), `pan.json: footage.marks[0].frame: must be 0 or more (footage frames count from 0)`, false},
 		{"frame too large", withMark(`{"frame": 10000001, "x": 1, "y": 2}`), `pan.json: footage.marks[0].frame: must be at most 10000000`, false},
 		{"frame marked twice", withFootage(`{"path": "clip", "marks": [{"frame": 2, "x": 1, "y": 2}, {"frame": 5, "x": 1, "y": 2}, {"frame": 2, "x": 3, "y": 4}]}`), `pan.json: footage.marks[2].frame: frame 2 is marked twice (first in footage.marks[0])`, false},
-		{"coordinate too large", withMark(`{"frame": 1, "x": 1, "y": 2, "x2": 2e9, "y2": 0}`), `pan.json: footage.marks[0].x2: must be a finite number of at most 1e+09 pixels from the image corner`, false},
+		{"coordinate too large", withMark(`{"frame": 1, "x": 1, "y": 2, "x2": 1e9, "y2": 0}`), `pan.json: footage.marks[0].x2: must be a finite number of at most 1e+06 pixels from the image corner`, false},
 		{"opacity above 1", withFootage(`{"path": "clip", "opacity": 1.5}`), `pan.json: footage.opacity: must be from 0 (invisible) to 1 (opaque)`, false},
 		{"opacity negative", withFootage(`{"path": "clip", "opacity": -0.1}`), `pan.json: footage.opacity: must be from 0 (invisible) to 1 (opaque)`, false},
 		{"fps zero", withFootage(`{"path": "clip", "fps": 0}`), `pan.json: footage.fps: must be positive`, false},
@@ -73,7 +73,7 @@ func TestParse_FootageEdges(t *testing.T) {
 		`{"path": "clip"}`,
 		`{"path": "/abs/clip.gif", "opacity": 0, "offset": -10000000, "marks": []}`,
 		`{"path": "clip", "opacity": 1, "offset": 10000000, "fps": 1, "overlay": false}`,
-		`{"path": "clip", "fps": 10000, "marks": [{"frame": 0, "x": -1e9, "y": 1e9}, {"frame": 10000000, "x": 0, "y": 0, "x2": 0, "y2": 0}]}`,
+		`{"path": "clip", "fps": 10000, "marks": [{"frame": 0, "x": -1e6, "y": 1e6}, {"frame": 10000000, "x": 0, "y": 0, "x2": 0, "y2": 0}]}`,
 	} {
 		doc, err := Parse("pan.json", []byte(withFootage(f)))
 		if err != nil {

@@ -57,7 +57,16 @@ func (p *footagePane) refit() {
 	d := p.w.ed.Doc()
 	marks := fitMarks(d)
 	p.fit, p.fitErr = nil, nil
-	if len(marks) >= footage.MinFitMarks {
+	var outside error
+	if p.seq != nil {
+		// Marks from the project file may lie outside the clip's image (a
+		// slip, or other footage): fit none of them then.
+		w, h := p.seq.Size()
+		outside = footage.CheckBounds(marks, w, h)
+	}
+	if outside != nil {
+		p.fitErr = fmt.Errorf("footage.marks: %w; move or delete it to fit", outside)
+	} else if len(marks) >= footage.MinFitMarks {
 		p.fit, p.fitErr = footage.Fit(marks, footage.FitOptions{FPS: p.footageRate().FPS(), Gravity: p.gravity()})
 	} else {
 		p.fitErr = fmt.Errorf("the fit needs at least %d marked frames; there are %d", footage.MinFitMarks, len(marks))
