@@ -5,6 +5,8 @@ import (
 
 	"github.com/go-pdf/fpdf"
 	"gonum.org/v1/gonum/spatial/r3"
+
+	"propflight/widgets/wire"
 )
 
 // Chart marks, mm on the page.
@@ -16,18 +18,6 @@ const (
 	arcSamples    = 8   // straight pieces per frame of the drawn arc
 	minLabelGap   = 5.0 // least distance between two frame numbers, mm
 )
-
-// niceStep returns the smallest of 1, 2 or 5 times a power of ten that is
-// at least x (x > 0).
-func niceStep(x float64) float64 {
-	p := math.Pow(10, math.Floor(math.Log10(x)))
-	for _, m := range []float64{1, 2, 5, 10} {
-		if m*p >= x*(1-1e-12) {
-			return m * p
-		}
-	}
-	return 10 * p
-}
 
 // horizontal returns the chart's horizontal coordinate of a world point and
 // the axis name. It is world x, unless the throw travels sideways (a
@@ -105,7 +95,7 @@ func (s *sheet) chart(x, y, w, h float64) {
 	if gy < py0+ph {
 		box(p, px0, math.Max(gy, py0), pw, py0+ph-math.Max(gy, py0), fillGroundBg)
 	}
-	step := niceStep(math.Max(wr-wl, wt-wb) / 12)
+	step := wire.NiceStep(math.Max(wr-wl, wt-wb) / 12)
 	p.SetLineWidth(0.12)
 	pen(p, inkFaint)
 	for g := math.Ceil(wl/step) * step; g <= wr; g += step {

@@ -8,9 +8,10 @@ import (
 
 // The ground grid.
 
-// niceStep returns the smallest of 1, 2 or 5 times a power of ten that is
-// at least x (x > 0).
-func niceStep(x float64) float64 {
+// NiceStep returns the smallest of 1, 2 or 5 times a power of ten that is
+// at least x (x > 0): the round spacing of the ground grid here and of the
+// timing sheet's chart grid.
+func NiceStep(x float64) float64 {
 	p := math.Pow(10, math.Floor(math.Log10(x)))
 	for _, m := range []float64{1, 2, 5, 10} {
 		if m*p >= x*(1-1e-12) {
@@ -32,7 +33,7 @@ func (d *drawer) grid(b r3.Box, y float64) {
 		return
 	}
 	ext := math.Max(math.Max(b.Max.X-b.Min.X, b.Max.Z-b.Min.Z), 0.5)
-	step := niceStep(ext / 10)
+	step := NiceStep(ext / 10)
 	margin := step
 	x0, x1 := math.Floor((b.Min.X-margin)/step), math.Ceil((b.Max.X+margin)/step)
 	z0, z1 := math.Floor((b.Min.Z-margin)/step), math.Ceil((b.Max.Z+margin)/step)
