@@ -8,6 +8,8 @@ import (
 	"regexp"
 	"strconv"
 	"strings"
+
+	"propflight/internal/units"
 )
 
 // Quantity says what a NumberField holds, and so its unit inside, the
@@ -44,18 +46,7 @@ func (q Quantity) String() string {
 	return quantityNames[q]
 }
 
-// Exact unit factors as rationals (base units per one unit), from NIST
-// Special Publication 811 (2008), Appendix B: the international inch is
-// 0.0254 m exactly, the foot 0.3048 m, the avoirdupois pound 0.45359237 kg
-// and the ounce a sixteenth of it; the statute mile is 5280 ft = 1609.344 m.
-var (
-	ratOne   = big.NewRat(1, 1)
-	ratInch  = big.NewRat(254, 10000)
-	ratFoot  = big.NewRat(3048, 10000)
-	ratPound = big.NewRat(45359237, 100000000)
-	ratMile  = big.NewRat(1609344, 1000)
-)
-
+// ratMul and ratQuo return new rationals, leaving their operands alone.
 func ratMul(a, b *big.Rat) *big.Rat { return new(big.Rat).Mul(a, b) }
 func ratQuo(a, b *big.Rat) *big.Rat { return new(big.Rat).Quo(a, b) }
 
@@ -66,32 +57,34 @@ type unit struct {
 	factor *big.Rat // exact base units per one of this unit
 }
 
+// The units, their factors from the one table in [units] (NIST SP 811,
+// Appendix B, for the imperial ones).
 var (
-	unitNone    = unit{"", nil, ratOne}
-	unitMetre   = unit{"m", []string{"m"}, ratOne}
-	unitCm      = unit{"cm", []string{"cm"}, big.NewRat(1, 100)}
-	unitMm      = unit{"mm", []string{"mm"}, big.NewRat(1, 1000)}
-	unitInch    = unit{"in", []string{"in", "\"", "inch", "inches"}, ratInch}
-	unitFoot    = unit{"ft", []string{"ft", "'", "foot", "feet"}, ratFoot}
-	unitKg      = unit{"kg", []string{"kg"}, ratOne}
-	unitGram    = unit{"g", []string{"g"}, big.NewRat(1, 1000)}
-	unitPound   = unit{"lb", []string{"lb", "lbs"}, ratPound}
-	unitOunce   = unit{"oz", []string{"oz"}, ratQuo(ratPound, big.NewRat(16, 1))}
-	unitKgM3    = unit{"kg/m³", []string{"kg/m³", "kg/m3", "kg/m^3"}, ratOne}
+	unitNone    = unit{"", nil, units.One.Rat()}
+	unitMetre   = unit{"m", []string{"m"}, units.One.Rat()}
+	unitCm      = unit{"cm", []string{"cm"}, units.Centimetre.Rat()}
+	unitMm      = unit{"mm", []string{"mm"}, units.Millimetre.Rat()}
+	unitInch    = unit{"in", []string{"in", "\"", "inch", "inches"}, units.Inch.Rat()}
+	unitFoot    = unit{"ft", []string{"ft", "'", "foot", "feet"}, units.Foot.Rat()}
+	unitKg      = unit{"kg", []string{"kg"}, units.One.Rat()}
+	unitGram    = unit{"g", []string{"g"}, units.Gram.Rat()}
+	unitPound   = unit{"lb", []string{"lb", "lbs"}, units.Pound.Rat()}
+	unitOunce   = unit{"oz", []string{"oz"}, units.Ounce.Rat()}
+	unitKgM3    = unit{"kg/m³", []string{"kg/m³", "kg/m3", "kg/m^3"}, units.One.Rat()}
 	unitGCm3    = unit{"g/cm³", []string{"g/cm³", "g/cm3", "g/cm^3"}, big.NewRat(1000, 1)}
-	unitLbFt3   = unit{"lb/ft³", []string{"lb/ft³", "lb/ft3", "lb/ft^3"}, ratQuo(ratPound, ratMul(ratFoot, ratMul(ratFoot, ratFoot)))}
-	unitDegree  = unit{"°", []string{"°", "deg", "degrees"}, ratOne}
-	unitMS      = unit{"m/s", []string{"m/s"}, ratOne}
-	unitFtS     = unit{"ft/s", []string{"ft/s"}, ratFoot}
+	unitLbFt3   = unit{"lb/ft³", []string{"lb/ft³", "lb/ft3", "lb/ft^3"}, ratQuo(units.Pound.Rat(), ratMul(units.Foot.Rat(), ratMul(units.Foot.Rat(), units.Foot.Rat())))}
+	unitDegree  = unit{"°", []string{"°", "deg", "degrees"}, units.One.Rat()}
+	unitMS      = unit{"m/s", []string{"m/s"}, units.One.Rat()}
+	unitFtS     = unit{"ft/s", []string{"ft/s"}, units.Foot.Rat()}
 	unitKmH     = unit{"km/h", []string{"km/h", "kph"}, big.NewRat(1000, 3600)}
-	unitMph     = unit{"mph", []string{"mph", "mi/h"}, ratQuo(ratMile, big.NewRat(3600, 1))}
-	unitTurnsS  = unit{"turns/s", []string{"turns/s", "turn/s", "rps", "/s"}, ratOne}
+	unitMph     = unit{"mph", []string{"mph", "mi/h"}, ratQuo(units.Mile.Rat(), big.NewRat(3600, 1))}
+	unitTurnsS  = unit{"turns/s", []string{"turns/s", "turn/s", "rps", "/s"}, units.One.Rat()}
 	unitRpm     = unit{"rpm", []string{"rpm", "turns/min"}, big.NewRat(1, 60)}
-	unitSecond  = unit{"s", []string{"s", "sec"}, ratOne}
+	unitSecond  = unit{"s", []string{"s", "sec"}, units.One.Rat()}
 	unitMilli   = unit{"ms", []string{"ms"}, big.NewRat(1, 1000)}
-	unitMS2     = unit{"m/s²", []string{"m/s²", "m/s2", "m/s^2"}, ratOne}
-	unitFtS2    = unit{"ft/s²", []string{"ft/s²", "ft/s2", "ft/s^2"}, ratFoot}
-	unitFrames  = unit{"frames", []string{"frames", "frame", "fr", "f"}, ratOne}
+	unitMS2     = unit{"m/s²", []string{"m/s²", "m/s2", "m/s^2"}, units.One.Rat()}
+	unitFtS2    = unit{"ft/s²", []string{"ft/s²", "ft/s2", "ft/s^2"}, units.Foot.Rat()}
+	unitFrames  = unit{"frames", []string{"frames", "frame", "fr", "f"}, units.One.Rat()}
 	shortLength = 2.0 // m: a length field whose range ends at or below this shows inches in imperial
 )
 

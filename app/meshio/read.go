@@ -11,6 +11,8 @@ import (
 	"strings"
 
 	"gonum.org/v1/gonum/spatial/r3"
+
+	"propflight/internal/units"
 )
 
 // Limits on what the readers accept.
@@ -22,16 +24,17 @@ const (
 	MaxTriangles = 10_000_000
 )
 
-// Unit lengths in metres (NIST SP 811, Appendix B: 1 in = 0.0254 m and
-// 1 ft = 0.3048 m exactly).
-var units = map[string]float64{"m": 1, "cm": 0.01, "mm": 0.001, "in": 0.0254, "ft": 0.3048}
+// Unit lengths in metres, from the one table in [units] (NIST SP 811,
+// Appendix B: 1 in = 0.0254 m and 1 ft = 0.3048 m exactly).
+var lengthUnits = map[string]float64{"m": 1, "cm": units.Centimetre.Float(), "mm": units.Millimetre.Float(),
+	"in": units.Inch.Float(), "ft": units.Foot.Float()}
 
 // UnitNames lists the unit names a mesh part's "units" takes.
 func UnitNames() []string { return []string{"m", "cm", "mm", "in", "ft"} }
 
 // UnitScale returns the length of the named unit in metres.
 func UnitScale(name string) (float64, bool) {
-	s, ok := units[name]
+	s, ok := lengthUnits[name]
 	return s, ok
 }
 
@@ -133,7 +136,7 @@ func Read(name string, data []byte, o Options, load func(uri string) ([]byte, er
 	}
 	scale := 1.0
 	if o.Units != "" {
-		scale = units[o.Units]
+		scale = lengthUnits[o.Units]
 	}
 	Transform(tris, scale, o.UpZ)
 	return tris, nil

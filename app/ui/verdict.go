@@ -8,6 +8,7 @@ import (
 	"gonum.org/v1/gonum/spatial/r3"
 
 	"propflight/app/editor"
+	"propflight/internal/units"
 	"propflight/physics"
 )
 
@@ -22,13 +23,6 @@ type report struct {
 }
 
 type row struct{ Label, Value string }
-
-// Imperial display factors, exact by definition (NIST SP 811, Appendix B):
-// 1 lb = 0.45359237 kg, 1 in = 0.0254 m.
-const (
-	kgPerLb = 0.45359237
-	mPerIn  = 0.0254
-)
 
 // verdictReport describes result res. Frames count from release (frame 0)
 // at the throw's rate; times are seconds; mass, centre of mass and moments
@@ -54,7 +48,7 @@ func verdictReport(res editor.Result, imperial bool) report {
 	add("motion", "%s", r.Motion)
 	massUnit, lenUnit, momUnit, mass, length := "kg", "m", "kg·m²", 1.0, 1.0
 	if imperial {
-		massUnit, lenUnit, momUnit, mass, length = "lb", "in", "lb·in²", 1/kgPerLb, 1/mPerIn
+		massUnit, lenUnit, momUnit, mass, length = "lb", "in", "lb·in²", 1/units.Pound.Float(), 1/units.Inch.Float()
 	}
 	add("mass", "%s %s", sig(mp.Mass*mass), massUnit)
 	add("centre of mass", "(%s, %s, %s) %s", fixed(mp.CM.X*length), fixed(mp.CM.Y*length), fixed(mp.CM.Z*length), lenUnit)
