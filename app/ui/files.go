@@ -144,39 +144,21 @@ func (w *Window) savePicked(dir, name string, then func()) {
 // confirmReplace asks before replacing the existing file path; replace
 // runs on Replace.
 func (w *Window) confirmReplace(path string, replace func()) {
-	title := "Replace " + filepath.Base(path) + "?"
-	msg := widget.NewLabel(fmt.Sprintf("%s already exists in %s. Saving replaces it.", filepath.Base(path), filepath.Dir(path)))
-	msg.Wrapping = fyne.TextWrapWord
-	d := dialog.NewCustomWithoutButtons(title, sized(msg, 420, 0), w.win)
-	choose := map[string]func(){
-		"Replace": func() { d.Hide(); replace() },
-		"Cancel":  func() { d.Hide() },
-	}
-	rep := widget.NewButton("Replace", choose["Replace"])
-	rep.Importance = widget.DangerImportance
-	d.SetButtons([]fyne.CanvasObject{widget.NewButton("Cancel", choose["Cancel"]), rep})
-	w.lastDialog = &shownDialog{title: title, message: msg.Text, d: d, choose: choose}
-	d.Show()
+	w.ask("Replace "+filepath.Base(path)+"?",
+		fmt.Sprintf("%s already exists in %s. Saving replaces it.", filepath.Base(path), filepath.Dir(path)), 420,
+		answer{label: "Cancel"},
+		answer{label: "Replace", run: replace, look: widget.DangerImportance})
 }
 
 // confirmReadOnly asks before replacing the read-only file path; replace
 // runs on "Replace anyway".
 func (w *Window) confirmReadOnly(path string, replace func()) {
 	base := printable.String(filepath.Base(path))
-	title := base + " is read-only"
-	msg := widget.NewLabel(fmt.Sprintf("%s in %s is read-only: someone protected it from changes. Replace it anyway? The new file keeps the read-only permission.",
-		base, printable.String(filepath.Dir(path))))
-	msg.Wrapping = fyne.TextWrapWord
-	d := dialog.NewCustomWithoutButtons(title, sized(msg, 420, 0), w.win)
-	choose := map[string]func(){
-		"Replace anyway": func() { d.Hide(); replace() },
-		"Cancel":         func() { d.Hide() },
-	}
-	rep := widget.NewButton("Replace anyway", choose["Replace anyway"])
-	rep.Importance = widget.DangerImportance
-	d.SetButtons([]fyne.CanvasObject{widget.NewButton("Cancel", choose["Cancel"]), rep})
-	w.lastDialog = &shownDialog{title: title, message: msg.Text, d: d, choose: choose}
-	d.Show()
+	w.ask(base+" is read-only",
+		fmt.Sprintf("%s in %s is read-only: someone protected it from changes. Replace it anyway? The new file keeps the read-only permission.",
+			base, printable.String(filepath.Dir(path))), 420,
+		answer{label: "Cancel"},
+		answer{label: "Replace anyway", run: replace, look: widget.DangerImportance})
 }
 
 // fileDialogSize is the size of the open and save dialogs: room for a
@@ -266,13 +248,6 @@ func (w *Window) showErrorNote(title string, err error, note string) {
 	d.Show()
 }
 
-// shownDialog records the last dialog the window showed, for tests.
-type shownDialog struct {
-	title, message string
-	d              dialog.Dialog
-	choose         map[string]func() // prompt buttons by label
-}
-
 // confirmDiscard runs proceed at once if there are no unsaved changes.
 // Otherwise it asks whether to save them first, discard them, or cancel
 // (then cancel runs, if not nil). action names what is about to happen.
@@ -282,34 +257,11 @@ func (w *Window) confirmDiscard(action string, proceed, cancel func()) {
 		return
 	}
 	name := shownName(w.ed.Doc(), w.ed.Path())
-	msg := widget.NewLabel(fmt.Sprintf("%s has changes that are not saved. %s will lose them unless you save first.", name, action))
-	msg.Wrapping = fyne.TextWrapWord
-	d := dialog.NewCustomWithoutButtons("Save changes?", sized(msg, 420, 0), w.win)
-	choose := map[string]func(){
-		"Save": func() {
-			d.Hide()
-			w.save(proceed)
-		},
-		"Don't save": func() {
-			d.Hide()
-			proceed()
-		},
-		"Cancel": func() {
-			d.Hide()
-			if cancel != nil {
-				cancel()
-			}
-		},
-	}
-	save := widget.NewButton("Save", choose["Save"])
-	save.Importance = widget.HighImportance
-	d.SetButtons([]fyne.CanvasObject{
-		widget.NewButton("Cancel", choose["Cancel"]),
-		widget.NewButton("Don't save", choose["Don't save"]),
-		save,
-	})
-	w.lastDialog = &shownDialog{title: "Save changes?", message: msg.Text, d: d, choose: choose}
-	d.Show()
+	w.ask("Save changes?",
+		fmt.Sprintf("%s has changes that are not saved. %s will lose them unless you save first.", name, action), 420,
+		answer{label: "Cancel", run: cancel},
+		answer{label: "Don't save", run: proceed},
+		answer{label: "Save", run: func() { w.save(proceed) }, look: widget.HighImportance})
 }
 
 // requestClose is the window's close intercept: it asks about unsaved

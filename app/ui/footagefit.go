@@ -6,7 +6,6 @@ import (
 	"strings"
 
 	"fyne.io/fyne/v2"
-	"fyne.io/fyne/v2/dialog"
 	"fyne.io/fyne/v2/widget"
 
 	"propflight/app/footage"
@@ -216,27 +215,10 @@ func irregularTurnText(turnsPerSecond, rms float64) string {
 // confirmIrregular asks whether to apply a fit whose turn is irregular:
 // the velocity only, the velocity and the rough rate, or nothing.
 func (p *footagePane) confirmIrregular(ts footage.ThrowSettings) {
-	const title = "The footage's turn is irregular"
-	msg := widget.NewLabel(irregularTurnText(ts.TurnsPerSecond, p.fit.TurnRMSDeg))
-	msg.Wrapping = fyne.TextWrapWord
-	d := dialog.NewCustomWithoutButtons(title, sized(msg, 460, 0), p.w.win)
 	velocityOnly := ts
 	velocityOnly.HasSpin = false
-	choose := map[string]func(){
-		"Cancel":        func() { d.Hide() },
-		"Velocity only": func() { d.Hide(); p.applyThrow(velocityOnly) },
-		"Apply the rough rate too": func() {
-			d.Hide()
-			p.applyThrow(ts)
-		},
-	}
-	vel := widget.NewButton("Velocity only", choose["Velocity only"])
-	vel.Importance = widget.HighImportance
-	d.SetButtons([]fyne.CanvasObject{
-		widget.NewButton("Cancel", choose["Cancel"]),
-		widget.NewButton("Apply the rough rate too", choose["Apply the rough rate too"]),
-		vel,
-	})
-	p.w.lastDialog = &shownDialog{title: title, message: msg.Text, d: d, choose: choose}
-	d.Show()
+	p.w.ask("The footage's turn is irregular", irregularTurnText(ts.TurnsPerSecond, p.fit.TurnRMSDeg), 460,
+		answer{label: "Cancel"},
+		answer{label: "Apply the rough rate too", run: func() { p.applyThrow(ts) }},
+		answer{label: "Velocity only", run: func() { p.applyThrow(velocityOnly) }, look: widget.HighImportance})
 }
