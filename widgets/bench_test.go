@@ -12,14 +12,14 @@ import (
 )
 
 // Benchmark sizes: the preview at 1280 x 800 pixels, the take about three
-// seconds (threeSecondHang) with three onion frames each side, the arc,
+// seconds (fixture.ThreeSecondHang) with three onion frames each side, the arc,
 // ticks, axes and grid on. The window's budget for recompute plus render
 // is 16 ms, one frame of a 60 Hz display.
 const benchW, benchH = 1280, 800
 
-// threeSecondScene is the pan thrown 6 m with a hang of threeSecondHang.
+// threeSecondScene is the pan thrown 6 m with a hang of fixture.ThreeSecondHang.
 func threeSecondScene(b *testing.B) wire.Scene {
-	sc := panScene(b, threeSecondHang, 6, 1.5)
+	sc := fixture.PanScene(b, fixture.ThreeSecondHang, 6, 1.5, 0)
 	if d := sc.Take.FlightTime; d < 2.9 || d > 3.2 {
 		b.Fatalf("flight time %.3f s, want about 3 s", d)
 	}
@@ -62,12 +62,8 @@ func BenchmarkPreviewDraw(b *testing.B) {
 // properties, physics.Simulate of the 3 s flight, framing and the render
 // of one frame at 1280 x 800.
 func BenchmarkSimulateAndRender(b *testing.B) {
-	prop := fryingPan()
-	mp0, err := prop.MassProps()
-	if err != nil {
-		b.Fatal(err)
-	}
-	th := panThrow(&mp0, threeSecondHang, 6, 1.5)
+	prop := fixture.FryingPan()
+	th := fixture.PanThrow(fixture.ThreeSecondHang, 6, 1.5)
 	var pt wire.Painter
 	img := wire.Rasterize(wire.Drawing{Width: benchW, Height: benchH}, wire.DefaultPalette())
 	pal := wire.DefaultPalette()
@@ -115,7 +111,7 @@ func BenchmarkPreviewRenderHiDPI(b *testing.B) {
 // outline). Budget: 16 ms at 1280 x 800.
 func BenchmarkPreviewRenderMesh(b *testing.B) {
 	test.NewTempApp(b)
-	sc, err := fixture.MeshPanScene(600, 24, threeSecondHang, 6, 1.5, 0)
+	sc, err := fixture.MeshPanScene(600, 24, fixture.ThreeSecondHang, 6, 1.5, 0)
 	if err != nil {
 		b.Fatal(err)
 	}

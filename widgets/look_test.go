@@ -11,6 +11,7 @@ import (
 	"fyne.io/fyne/v2/test"
 	"fyne.io/fyne/v2/theme"
 
+	"propflight/internal/fixture"
 	"propflight/physics"
 	"propflight/widgets/wire"
 )
@@ -24,7 +25,7 @@ func TestLook(t *testing.T) {
 	}
 	test.NewTempApp(t)
 	test.ApplyTheme(t, theme.DefaultTheme())
-	sc := panScene(t, 1.1, 2.8, 1.5)
+	sc := fixture.PanScene(t, 1.1, 2.8, 1.5, 0)
 	n := len(sc.Take.Frames)
 
 	pv := NewPreview()

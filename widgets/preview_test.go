@@ -9,6 +9,7 @@ import (
 	"fyne.io/fyne/v2"
 	"fyne.io/fyne/v2/test"
 
+	"propflight/internal/fixture"
 	"propflight/widgets/wire"
 )
 
@@ -17,7 +18,7 @@ import (
 func previewWindow(t *testing.T) (*Preview, fyne.Window) {
 	t.Helper()
 	test.NewTempApp(t)
-	sc := panScene(t, 1.1, 2.8, 1.5)
+	sc := fixture.PanScene(t, 1.1, 2.8, 1.5, 0)
 	p := NewPreview()
 	p.SetScene(sc)
 	p.SetFrame(sc.Take.ApexFrame)
@@ -144,7 +145,7 @@ func TestPreview_SetScene_KeepsCameraUnlessSizeChangesALot(t *testing.T) {
 	frame := p.Frame()
 
 	// A slightly longer throw keeps the user's zoom and the frame.
-	p.SetScene(panScene(t, 1.15, 2.9, 1.5))
+	p.SetScene(fixture.PanScene(t, 1.15, 2.9, 1.5, 0))
 	if p.Camera().Distance != zoomed {
 		t.Errorf("distance after a small change = %v, want the user's %v", p.Camera().Distance, zoomed)
 	}
@@ -153,7 +154,7 @@ func TestPreview_SetScene_KeepsCameraUnlessSizeChangesALot(t *testing.T) {
 	}
 
 	// A throw three times as far is framed again.
-	big := panScene(t, 1.6, 9, 1.5)
+	big := fixture.PanScene(t, 1.6, 9, 1.5, 0)
 	p.SetScene(big)
 	want := p.Camera()
 	want.Frame(wire.Bounds(p.Scene()))

@@ -14,12 +14,12 @@ import (
 // from 1.4 m, spinning 2 turns a second near its middle axis, which lands
 // at about 3 s (72 frames at 24 fps).
 func throw3s(b *testing.B) (*physics.Prop, physics.MassProps, physics.Throw) {
-	p := fryingPan()
+	p := fixture.FryingPan()
 	mp, err := p.MassProps()
 	if err != nil {
 		b.Fatal(err)
 	}
-	return p, mp, panThrow(&mp, 2.9, 4.5, 2)
+	return p, mp, fixture.PanThrow(2.9, 4.5, 2)
 }
 
 // BenchmarkDrawRasterize1280x800 is the preview's whole redraw after an

@@ -9,6 +9,7 @@ import (
 
 	"gonum.org/v1/gonum/spatial/r3"
 
+	"propflight/internal/fixture"
 	"propflight/physics"
 	"propflight/widgets/wire"
 )
@@ -46,7 +47,7 @@ func framedCamera(v wire.View, w, h int, sc wire.Scene) wire.Camera {
 // vertex by vertex from the part's own mesh with quaternions.
 func TestDraw_PartSegments_PlacedByTake(t *testing.T) {
 	for _, v := range []wire.View{wire.Front, wire.Free} {
-		sc := panScene(t, 1.2, 3.2, 1.5, 11)
+		sc := fixture.PanScene(t, 1.2, 3.2, 1.5, 11)
 		cam := framedCamera(v, 800, 500, sc)
 		d := wire.Draw(cam, sc)
 		f := &sc.Take.Frames[11]
@@ -83,7 +84,7 @@ func TestDraw_PartSegments_PlacedByTake(t *testing.T) {
 // Part segments are the prop mesh's edges projected directly, the centre
 // cross sits on the prop's centre of mass and there is no arc or onion.
 func TestDraw_NoTake_AuthoredPose(t *testing.T) {
-	p := fryingPan()
+	p := fixture.FryingPan()
 	sc := wire.Scene{Prop: p, OnionBefore: 3, OnionAfter: 3, ShowArc: true, ShowTicks: true, ShowAxes: true}
 	cam := framedCamera(wire.Free, 640, 400, sc)
 	d := wire.Draw(cam, sc)
@@ -115,7 +116,7 @@ func TestDraw_NoTake_AuthoredPose(t *testing.T) {
 // OnionAlpha (N + 1 - k) / N at k frames away; frames past the take's ends
 // are left out.
 func TestDraw_OnionSkin_FadesAway(t *testing.T) {
-	sc := panScene(t, 1.2, 3.2, 1.5, 10)
+	sc := fixture.PanScene(t, 1.2, 3.2, 1.5, 10)
 	sc.OnionBefore, sc.OnionAfter = 3, 2
 	d := wire.Draw(framedCamera(wire.Front, 640, 400, sc), sc)
 	type group struct {
@@ -158,9 +159,9 @@ func TestDraw_OnionSkin_FadesAway(t *testing.T) {
 // instant. In the front orthographic view screen x is linear in world x,
 // which is linear in time, so each vertex's time is read back from its x.
 func TestDraw_Arc_OnExactParabola(t *testing.T) {
-	p := fryingPan()
+	p := fixture.FryingPan()
 	mp, _ := p.MassProps()
-	th := panThrow(&mp, 1.2, 3.2, 1.5)
+	th := fixture.PanThrow(1.2, 3.2, 1.5)
 	tk, err := physics.Simulate(p, &mp, &th)
 	if err != nil {
 		t.Fatal(err)
@@ -200,7 +201,7 @@ func TestDraw_Arc_OnExactParabola(t *testing.T) {
 // either side is parallel to its tangent at the frame (the velocity is
 // linear in time), so the chord tells "square to the arc" exactly.
 func TestDraw_Ticks_OnePerFrameAcrossArc(t *testing.T) {
-	sc := panScene(t, 1.2, 3.2, 1.5, 5)
+	sc := fixture.PanScene(t, 1.2, 3.2, 1.5, 5)
 	sc.OnionBefore, sc.OnionAfter = 0, 0
 	cam := framedCamera(wire.Front, 900, 600, sc)
 	d := wire.Draw(cam, sc)
@@ -250,7 +251,7 @@ func TestDraw_Ticks_OnePerFrameAcrossArc(t *testing.T) {
 // centre of mass along the principal axes turned by the frame's
 // orientation, labelled least, middle, greatest.
 func TestDraw_Axes_FromCentreOfMass(t *testing.T) {
-	sc := panScene(t, 1.2, 3.2, 1.5, 9)
+	sc := fixture.PanScene(t, 1.2, 3.2, 1.5, 9)
 	cam := framedCamera(wire.Free, 800, 500, sc)
 	d := wire.Draw(cam, sc)
 	f := &sc.Take.Frames[9]
@@ -284,7 +285,7 @@ func TestDraw_Axes_FromCentreOfMass(t *testing.T) {
 // TestDraw_Grid_TopViewSquare: seen from the top the grid is evenly spaced
 // horizontal and vertical lines.
 func TestDraw_Grid_TopViewSquare(t *testing.T) {
-	sc := panScene(t, 1.2, 3.2, 1.5, 5)
+	sc := fixture.PanScene(t, 1.2, 3.2, 1.5, 5)
 	d := wire.Draw(framedCamera(wire.Top, 800, 800, sc), sc)
 	grid := segmentsOf(d, wire.Grid)
 	if len(grid) < 8 {
@@ -319,7 +320,7 @@ func TestDraw_Grid_TopViewSquare(t *testing.T) {
 // TestDraw_SegmentsStayNearImage: every segment is clipped to a few pixels
 // around the image, even with the camera inside the scene.
 func TestDraw_SegmentsStayNearImage(t *testing.T) {
-	sc := panScene(t, 1.2, 3.2, 1.5, 12)
+	sc := fixture.PanScene(t, 1.2, 3.2, 1.5, 12)
 	cam := wire.NewCamera(wire.Free, 400, 300)
 	cam.Target = sc.Take.Frames[12].CM
 	cam.Distance = 0.15 // inside the arc's span, near the prop

@@ -11,6 +11,7 @@ import (
 	"path/filepath"
 	"testing"
 
+	"propflight/internal/fixture"
 	"propflight/widgets/wire"
 )
 
@@ -110,7 +111,7 @@ func writeFailed(t *testing.T, name string, got []byte, diff *image.RGBA) {
 // TestGolden_Views draws the frying-pan throw at frame 14 (its apex) from
 // the four views, framed on the whole take, and one print-palette picture.
 func TestGolden_Views(t *testing.T) {
-	sc := panScene(t, 1.2, 3.2, 1.5, 14)
+	sc := fixture.PanScene(t, 1.2, 3.2, 1.5, 14)
 	for _, c := range []struct {
 		name string
 		view wire.View
@@ -129,7 +130,7 @@ func TestGolden_Views(t *testing.T) {
 	}
 	// A close-up of the prop alone in its authored pose.
 	t.Run("pan_prop", func(t *testing.T) {
-		ps := wire.Scene{Prop: fryingPan(), ShowAxes: true}
+		ps := wire.Scene{Prop: fixture.FryingPan(), ShowAxes: true}
 		cam := framedCamera(wire.Free, 240, 160, ps)
 		cam.Orbit(0, math.Pi/8)
 		checkGolden(t, "pan_prop", wire.Rasterize(wire.Draw(cam, ps), wire.DefaultPalette()))

@@ -6,6 +6,7 @@ import (
 	"math"
 	"testing"
 
+	"propflight/internal/fixture"
 	"propflight/widgets/wire"
 )
 
@@ -207,7 +208,7 @@ func TestRasterize_SourceOver(t *testing.T) {
 // dst.Rect.Min, and painting twice into the same image gives the same
 // pixels as a fresh Rasterize.
 func TestRasterizeInto_OffsetAndReuse(t *testing.T) {
-	sc := panScene(t, 1.2, 3.2, 1.5, 8)
+	sc := fixture.PanScene(t, 1.2, 3.2, 1.5, 8)
 	d := wire.Draw(framedCamera(wire.Free, 160, 100, sc), sc)
 	pal := wire.DefaultPalette()
 	want := wire.Rasterize(d, pal)
@@ -288,7 +289,7 @@ func TestRasterize_LabelScale(t *testing.T) {
 // TestDraw_LabelScaleKeepsLabelsApart: at LabelScale 2 the labels Draw
 // places do not overlap when measured at the doubled size.
 func TestDraw_LabelScaleKeepsLabelsApart(t *testing.T) {
-	sc := panScene(t, 1.2, 3, 1.5, 10)
+	sc := fixture.PanScene(t, 1.2, 3, 1.5, 10)
 	sc.LabelScale = 2
 	cam := wire.NewCamera(wire.Free, 640, 400)
 	cam.Frame(wire.Bounds(sc))
