@@ -2,11 +2,13 @@ package widgets
 
 import (
 	"image"
+	"image/color"
 	"image/draw"
 	"math"
 
 	"fyne.io/fyne/v2"
 	"fyne.io/fyne/v2/canvas"
+	"fyne.io/fyne/v2/theme"
 	"fyne.io/fyne/v2/widget"
 	"gonum.org/v1/gonum/spatial/r3"
 
@@ -63,6 +65,8 @@ type Preview struct {
 	auto    bool   // the camera is as Frame left it: re-frame when resized
 	framed  r3.Box // the box last framed
 	pal     wire.Palette
+	themed  bool // pal follows the theme (no SetPalette yet)
+	light   bool // the theme pal was chosen for is light
 	painter wire.Painter
 	raster  *canvas.Raster
 	img     *image.RGBA
@@ -72,7 +76,7 @@ type Preview struct {
 
 // NewPreview returns an empty preview looking from the front.
 func NewPreview() *Preview {
-	p := &Preview{pal: wire.DefaultPalette(), stale: true}
+	p := &Preview{pal: wire.DefaultPalette(), themed: true, stale: true}
 	free := wire.NewCamera(wire.Free, 1, 1)
 	p.cam = wire.NewCamera(wire.Front, int(previewMin.Width), int(previewMin.Height))
 	p.cam.Yaw, p.cam.Pitch = free.Yaw, free.Pitch // what SetView(Free) starts from
@@ -132,11 +136,38 @@ func (p *Preview) View() wire.View { return p.cam.View }
 // drawing the same picture elsewhere (the timing sheet).
 func (p *Preview) Camera() wire.Camera { return p.cam }
 
-// SetPalette sets the colours and line widths (wire.DefaultPalette until
-// then).
+// SetPalette sets the colours and line widths. Until it is called the
+// preview follows the theme: wire.DefaultPalette on a dark background,
+// wire.LightPalette on a light one (see followTheme).
 func (p *Preview) SetPalette(pal wire.Palette) {
 	p.pal = pal
+	p.themed = false
 	p.changed()
+}
+
+// followTheme picks the palette for the theme's background when the
+// preview follows the theme, and reports whether it changed. A theme
+// counts as light when its background's relative luminance (sRGB
+// coefficients of ITU-R BT.709) is over one half, so a theme that forces
+// a variant is read right whatever the system's variant.
+func (p *Preview) followTheme() bool {
+	if !p.themed || fyne.CurrentApp() == nil {
+		return false
+	}
+	bg := p.Theme().Color(theme.ColorNameBackground, fyne.CurrentApp().Settings().ThemeVariant())
+	r, g, b, _ := bg.RGBA()
+	light := (0.2126*float64(r)+0.7152*float64(g)+0.0722*float64(b))/0xffff > 0.5
+	if light == p.light && p.pal.Background != (color.NRGBA{}) {
+		return false
+	}
+	p.light = light
+	if light {
+		p.pal = wire.LightPalette()
+	} else {
+		p.pal = wire.DefaultPalette()
+	}
+	p.stale = true
+	return true
 }
 
 // ResetCamera frames the whole take in the current view.
@@ -266,6 +297,7 @@ func (p *Preview) render(w, h int) image.Image {
 		p.scale = scale
 		p.stale = true
 	}
+	p.followTheme()
 	if !p.stale {
 		return p.img
 	}
@@ -295,6 +327,7 @@ func (r *previewRenderer) MinSize() fyne.Size { return previewMin }
 func (r *previewRenderer) Objects() []fyne.CanvasObject { return []fyne.CanvasObject{r.p.raster} }
 
 func (r *previewRenderer) Refresh() {
+	r.p.followTheme() // a theme change refreshes every widget
 	r.Layout(r.p.Size())
 	r.p.raster.Refresh()
 }

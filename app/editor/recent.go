@@ -17,11 +17,26 @@ const MaxRecent = 8
 // first, kept in a small JSON file (see DefaultRecentPath).
 type Recent struct {
 	path  string
+	store func(files []string) // where Add saves the list instead of path; may be nil
 	Files []string `json:"files"`
 }
 
-// DefaultRecentPath is where the window keeps its list:
-// <user config dir>/propflight/recent.json.
+// NewRecent returns a list holding files (newest first; blanks and
+// repeats dropped, at most MaxRecent) that Add hands to store, such as the
+// window's Fyne preferences.
+func NewRecent(files []string, store func(files []string)) *Recent {
+	r := &Recent{store: store}
+	for _, p := range files {
+		if p != "" && len(r.Files) < MaxRecent && !slices.Contains(r.Files, p) {
+			r.Files = append(r.Files, p)
+		}
+	}
+	return r
+}
+
+// DefaultRecentPath is where the window kept its list before it moved to
+// the Fyne preferences: <user config dir>/propflight/recent.json (read
+// once to migrate it).
 func DefaultRecentPath() (string, error) {
 	dir, err := os.UserConfigDir()
 	if err != nil {
@@ -80,6 +95,10 @@ func (r *Recent) Add(file string) error {
 		}
 	}
 	r.Files = files
+	if r.store != nil {
+		r.store(slices.Clone(files))
+		return nil
+	}
 	if r.path == "" {
 		return nil
 	}

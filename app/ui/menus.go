@@ -14,6 +14,7 @@ type menus struct {
 	redo     *fyne.MenuItem
 	recent   *fyne.MenuItem
 	imperial *fyne.MenuItem
+	themes   map[string]*fyne.MenuItem // the View menu's theme choices
 	shown    [4]string // undo and redo labels and enablement last shown
 }
 
@@ -59,10 +60,21 @@ func newMenus(w *Window) *menus {
 	m.imperial.Action = func() {
 		m.imperial.Checked = !m.imperial.Checked
 		w.setImperial(m.imperial.Checked)
+		w.app.Preferences().SetBool(prefImperial, m.imperial.Checked)
 		m.main.Refresh()
 	}
+	themeMenu := fyne.NewMenuItem("Theme", nil)
+	m.themes = map[string]*fyne.MenuItem{}
+	var themeItems []*fyne.MenuItem
+	for _, c := range []struct{ choice, label string }{{themeSystem, "As the System"}, {themeLight, "Light"}, {themeDark, "Dark"}} {
+		it := fyne.NewMenuItem(c.label, func() { w.setTheme(c.choice) })
+		m.themes[c.choice] = it
+		themeItems = append(themeItems, it)
+	}
+	themeMenu.ChildMenu = fyne.NewMenu("", themeItems...)
 	view := fyne.NewMenu("View",
 		m.imperial,
+		themeMenu,
 		fyne.NewMenuItemSeparator(),
 		fyne.NewMenuItem("Play / Pause (Space)", w.togglePlayback),
 		fyne.NewMenuItem("Frame all", func() { w.view.preview.ResetCamera() }),

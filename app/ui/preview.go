@@ -51,6 +51,9 @@ func newPreviewPane(w *Window) *previewPane {
 				p.before = i
 			}
 		}
+		if w.syncing == 0 { // not while the window is built or restored
+			w.app.Preferences().SetInt(prefOnion, p.before)
+		}
 		p.refreshScene()
 	})
 	p.onion.SetSelected(onionLabel(2))
@@ -88,9 +91,13 @@ func (p *previewPane) setView(v wire.View) {
 	p.markView()
 }
 
-// markView highlights the button of the current view.
+// markView highlights the button of the current view and saves it as the
+// user's.
 func (p *previewPane) markView() {
 	cur := p.preview.View()
+	if p.w.syncing == 0 {
+		p.w.app.Preferences().SetInt(prefView, int(cur))
+	}
 	for i, b := range p.views {
 		if wire.View(i) == cur {
 			b.Importance = widget.HighImportance

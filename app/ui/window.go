@@ -182,16 +182,13 @@ func newWindowWith(a fyne.App, doc *project.Document, path string, opt windowOpt
 			do(func() { w.apply(res) })
 		})
 	}
-	if rp, err := editor.DefaultRecentPath(); err == nil {
-		w.recent = editor.LoadRecent(rp)
-	} else {
-		w.recent = editor.LoadRecent("")
-	}
+	w.recent = loadRecent(a)
 	w.win = a.NewWindow("Propflight")
 	w.build()
 	w.win.Resize(fyne.NewSize(1560, 960))
 	w.win.SetCloseIntercept(w.requestClose)
 	w.syncControls()
+	w.restorePrefs()
 	return w, nil
 }
 

@@ -72,6 +72,19 @@ func PrintPalette() Palette {
 	return p
 }
 
+// LightPalette returns the screen palette for a light theme: a light
+// background with the print palette's darker hues, at DefaultPalette's
+// line widths (the preview under the light theme).
+func LightPalette() Palette {
+	p := PrintPalette()
+	p.Background = color.NRGBA{246, 247, 249, 255}
+	d := DefaultPalette()
+	for i := range p.Styles {
+		p.Styles[i].Width = d.Styles[i].Width
+	}
+	return p
+}
+
 // Rasterize paints the drawing into a new Width x Height image with the
 // palette.
 func Rasterize(d Drawing, pal Palette) *image.RGBA {
