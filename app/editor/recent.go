@@ -18,7 +18,7 @@ const MaxRecent = 8
 type Recent struct {
 	path  string
 	store func(files []string) // where Add saves the list instead of path; may be nil
-	Files []string `json:"files"`
+	Files []string             `json:"files"`
 }
 
 // NewRecent returns a list holding files (newest first; blanks and

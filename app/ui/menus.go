@@ -15,7 +15,7 @@ type menus struct {
 	recent   *fyne.MenuItem
 	imperial *fyne.MenuItem
 	themes   map[string]*fyne.MenuItem // the View menu's theme choices
-	shown    [4]string // undo and redo labels and enablement last shown
+	shown    [4]string                 // undo and redo labels and enablement last shown
 }
 
 // Keyboard shortcuts (Ctrl on Linux and Windows, Cmd on macOS). Ctrl+Z
