@@ -1,6 +1,8 @@
 package project
 
 import (
+	"fmt"
+	"math"
 	"os"
 	"path/filepath"
 	"slices"
@@ -116,6 +118,17 @@ func (b *builder) meshPart(p *Part, path string, out *physics.Part) error {
 	if err != nil {
 		return &Error{File: b.file, Field: join(path, "file"), Msg: err.Error(), Err: err}
 	}
+	lo, hi := m.Bounds()
+	if far := math.Max(math.Max(math.Abs(lo.X), math.Abs(hi.X)), math.Max(math.Max(math.Abs(lo.Y), math.Abs(hi.Y)), math.Max(math.Abs(lo.Z), math.Abs(hi.Z)))); far > maxPosition {
+		return b.fail(join(path, "file"), "the mesh reaches %.3g m from the file's origin, more than %g m: check units (its numbers are read as %s)", far, maxPosition, units)
+	}
+	size := math.Max(hi.X-lo.X, math.Max(hi.Y-lo.Y, hi.Z-lo.Z))
+	switch {
+	case size > largeProp:
+		notes = append(notes, fmt.Sprintf("the mesh is %.3g m across, large for a thrown prop: check units (its numbers are read as %s)", size, units))
+	case size < smallProp:
+		notes = append(notes, fmt.Sprintf("the mesh is %.3g mm across, small for a thrown prop: check units (its numbers are read as %s)", size*1000, units))
+	}
 	out.Mesh = m
 	for _, n := range notes {
 		b.notes = append(b.notes, join(path, "file")+": "+n)
@@ -125,6 +138,14 @@ func (b *builder) meshPart(p *Part, path string, out *physics.Part) error {
 
 // builtin reports whether a mesh file names a mesh shipped inside Propflight.
 func builtin(file string) bool { return strings.HasPrefix(file, assets.BuiltinPrefix) }
+
+// Sizes outside which a mesh prop is probably read in the wrong units (a
+// CAD file in millimetres read as metres is 1000 times too large): common
+// practice, no source.
+const (
+	largeProp = 20    // m across
+	smallProp = 0.002 // m across
+)
 
 func listOr(words []string) string {
 	return strings.Join(words[:len(words)-1], ", ") + " or " + words[len(words)-1]

@@ -192,3 +192,29 @@ func TestMeshPart_SaveAsKeepsFile(t *testing.T) {
 		t.Errorf("MeshPath %q, want %q", a, b)
 	}
 }
+
+// TestMeshPart_UnitsNote: a crate read in the wrong units gets a note, and
+// one beyond the position limit is refused on the file.
+func TestMeshPart_UnitsNote(t *testing.T) {
+	dir := t.TempDir()
+	writeFile(t, filepath.Join(dir, "crate.obj"), crateOBJ(0, false))
+	for _, c := range []struct{ units, note string }{
+		{"mm", "the mesh is 0.4 mm across, small for a thrown prop: check units (its numbers are read as mm)"},
+		{"m", ""},
+	} {
+		p := writeFile(t, filepath.Join(dir, "p.json"), `{"format": "propflight/v1", "prop": {"parts": [{"shape": "mesh", "file": "crate.obj", "units": "`+c.units+`", "mass": 1}]}}`)
+		_, sc, err := loadBuild(t, p)
+		if err != nil {
+			t.Fatal(err)
+		}
+		if got := strings.Join(sc.Notes, "; "); (c.note == "" && got != "") || !strings.Contains(got, c.note) {
+			t.Errorf("%s: notes %q, want %q", c.units, got, c.note)
+		}
+	}
+	big := strings.NewReplacer("0.15", "150000", "0.2", "200000", "0.1", "100000").Replace(crateOBJ(0, false))
+	writeFile(t, filepath.Join(dir, "big.obj"), big)
+	p := writeFile(t, filepath.Join(dir, "p.json"), `{"format": "propflight/v1", "prop": {"parts": [{"shape": "mesh", "file": "big.obj", "mass": 1}]}}`)
+	if _, _, err := loadBuild(t, p); err == nil || !strings.Contains(err.Error(), "prop.parts[0].file: the mesh reaches 2e+05 m from the file's origin") {
+		t.Errorf("big: %v", err)
+	}
+}

@@ -115,7 +115,11 @@ func New(tris [][3]r3.Vec) (*Mesh, []string, error) {
 	m.V, m.T = compact(verts, kept)
 
 	s := m.moments(false)
-	if e := extent(m.V); !(math.Abs(s.Measure) > 1e-12*e*e*e) {
+	e := extent(m.V)
+	if !finite(s.Measure) || !finite(s.Inertia[0][0]+s.Inertia[1][1]+s.Inertia[2][2]) {
+		return nil, nil, fmt.Errorf("the coordinates are too large to compute with (the mesh is %.3g across)", e)
+	}
+	if !(math.Abs(s.Measure)/e/e/e > 1e-12) {
 		return nil, nil, errors.New("encloses no volume: the surface is flat")
 	}
 	if s.Measure < 0 {
@@ -241,15 +245,29 @@ func extent(v []r3.Vec) float64 {
 	return math.Max(d.X, math.Max(d.Y, d.Z))
 }
 
-// bounds returns the corners of the axis-aligned bounding box of v.
+// bounds returns the corners of the axis-aligned bounding box of v (the
+// coordinates are finite: plain comparisons, faster than math.Min).
 func bounds(v []r3.Vec) (lo, hi r3.Vec) {
 	if len(v) == 0 {
 		return
 	}
 	lo, hi = v[0], v[0]
 	for _, p := range v[1:] {
-		lo = r3.Vec{X: math.Min(lo.X, p.X), Y: math.Min(lo.Y, p.Y), Z: math.Min(lo.Z, p.Z)}
-		hi = r3.Vec{X: math.Max(hi.X, p.X), Y: math.Max(hi.Y, p.Y), Z: math.Max(hi.Z, p.Z)}
+		if p.X < lo.X {
+			lo.X = p.X
+		} else if p.X > hi.X {
+			hi.X = p.X
+		}
+		if p.Y < lo.Y {
+			lo.Y = p.Y
+		} else if p.Y > hi.Y {
+			hi.Y = p.Y
+		}
+		if p.Z < lo.Z {
+			lo.Z = p.Z
+		} else if p.Z > hi.Z {
+			hi.Z = p.Z
+		}
 	}
 	return
 }

@@ -261,6 +261,7 @@ func TestNew_Bad(t *testing.T) {
 		{"third face", fin, "non-manifold"},
 		{"degenerate only", degenerate, "all 2 triangles have zero area"},
 		{"flat", flat, "encloses no volume"},
+		{"huge", transform(boxTris(1e120, 1e120, 1e120), diag(1, 1, 1), r3.Vec{}), "the coordinates are too large"},
 	} {
 		m, _, err := New(c.tris)
 		if err == nil || m != nil {
