@@ -69,7 +69,7 @@ func TestWindow_AddMeshPart_EditAndUndo(t *testing.T) {
 	if w.props.selected != n || w.props.units == nil || w.props.units.Selected != "mm" {
 		t.Fatalf("mesh editor: selected %d, units %v", w.props.selected, w.props.units)
 	}
-	if !strings.Contains(w.props.meshFacts.Text, "12 triangles") {
+	if w.props.meshFacts.Text != "12 triangles, 10.0 × 10.0 × 10.0 cm, volume 1.00 L." {
 		t.Errorf("mesh facts %q", w.props.meshFacts.Text)
 	}
 

@@ -29,5 +29,17 @@
 //
 // Meshes (PartMesh, PropMesh) are closed, outward-wound triangle meshes
 // with unit normals, for export as well as for the wireframe; their Edges
-// are the lines Draw shows.
+// are the lines Draw shows for the primitives.
+//
+// A mesh part (a model read from a file, often hundreds of thousands of
+// triangles) is drawn as a line drawing instead (outline.go): its creases,
+// edges where the faces meet at more than CreaseAngle (40 degrees), in
+// every pose, and its contour, the smooth edges between a face turned
+// toward the viewer and one turned away, found again for each pose. The
+// Outline that makes this cheap is computed once per mesh and cached
+// (MeshOutline): faces are grouped in patches whose normal cones and
+// bounding spheres decide most of them at once (outlinecull.go), and
+// creases are joined into chains that are merged on screen within 0.2 px
+// (chain.go). Surface gives a mesh part's triangles for export, with
+// normals smooth across edges under the crease angle.
 package wire

@@ -142,3 +142,36 @@ func TestDraw_MeshSphereContour(t *testing.T) {
 		}
 	}
 }
+
+// TestDraw_MeshConcurrent: several goroutines drawing one mesh prop at
+// once (the preview, a sheet and a PNG export can) share one cached
+// outline and get the same drawing; run under -race this checks the cache
+// and the outline's read-only use.
+func TestDraw_MeshConcurrent(t *testing.T) {
+	v, tr := fixture.PanBowl(64, 4)
+	prop := &physics.Prop{Parts: []physics.Part{{Name: "pan", Shape: physics.MeshShape,
+		Mesh: &mesh.Mesh{V: v, T: tr}, Mass: 0.8, Orient: physics.Identity()}}}
+	mp, err := prop.MassProps()
+	if err != nil {
+		t.Fatal(err)
+	}
+	sc := wire.Scene{Prop: prop, Mass: &mp, ShowAxes: true}
+	cam := framedCamera(wire.Free, 320, 240, sc)
+	want := len(wire.Draw(cam, sc).Segments)
+	// The same model as a fresh mesh, so that the goroutines race to make
+	// its outline.
+	fresh := *prop
+	fresh.Parts = []physics.Part{prop.Parts[0]}
+	fresh.Parts[0].Mesh = &mesh.Mesh{V: v, T: tr}
+	sc2 := sc
+	sc2.Prop = &fresh
+	done := make(chan int)
+	for range 4 {
+		go func() { done <- len(wire.Draw(cam, sc2).Segments) }()
+	}
+	for range 4 {
+		if got := <-done; got != want {
+			t.Errorf("a concurrent drawing has %d segments, want %d", got, want)
+		}
+	}
+}
