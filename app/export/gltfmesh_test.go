@@ -10,8 +10,10 @@ import (
 
 	"gonum.org/v1/gonum/spatial/r3"
 
+	"propflight/app/meshio"
 	"propflight/internal/fixture"
 	"propflight/physics"
+	"propflight/physics/mesh"
 )
 
 // meshInput is the pan with its body as a mesh part (fixture.MeshPan),
@@ -104,4 +106,30 @@ func TestGLTF_MeshKhronosValidator(t *testing.T) {
 		t.Fatal(err)
 	}
 	validate(t, path)
+}
+
+// TestGLTF_MeshReadsBackAsTheSameSolid: the GLB of a mesh prop, read back
+// by the project's own glTF reader (app/meshio) and welded, is a closed
+// solid whose volume is the prop's: the mesh part's plus the handle box's
+// (box volume abc; CRC Standard Mathematical Tables, solid geometry), to
+// single precision.
+func TestGLTF_MeshReadsBackAsTheSameSolid(t *testing.T) {
+	in := meshInput(t, 96, 8)
+	var buf bytes.Buffer
+	if err := WriteGLTF(&buf, in, GLTFOptions{Binary: true}); err != nil {
+		t.Fatal(err)
+	}
+	tris, err := meshio.ReadGLB(buf.Bytes())
+	if err != nil {
+		t.Fatal(err)
+	}
+	m, _, err := mesh.New(tris)
+	if err != nil {
+		t.Fatalf("the exported prop does not read back as a closed solid: %v", err)
+	}
+	h := in.Prop.Parts[1].Size
+	want := in.Prop.Parts[0].Mesh.Solid().Measure + h.X*h.Y*h.Z
+	if got := m.Solid().Measure; math.Abs(got-want) > 1e-5*want {
+		t.Errorf("volume read back %.9g m^3, want %.9g", got, want)
+	}
 }

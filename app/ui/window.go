@@ -16,6 +16,7 @@ import (
 	"propflight/internal/printable"
 	"propflight/physics"
 	"propflight/widgets"
+	"propflight/widgets/wire"
 )
 
 // Window is Propflight's main window: the open project, the controls that
@@ -179,6 +180,11 @@ func newWindowWith(a fyne.App, doc *project.Document, path string, opt windowOpt
 	} else {
 		do := w.do
 		w.comp = editor.NewWorker(func(res editor.Result) {
+			// A new model's outline is made here, on the worker, so the
+			// preview's first drawing of it does not hold up the window.
+			if res.Scene != nil {
+				wire.PrepareOutlines(&res.Scene.Prop)
+			}
 			do(func() { w.apply(res) })
 		})
 	}

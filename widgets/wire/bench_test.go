@@ -123,3 +123,28 @@ func BenchmarkContour(b *testing.B) {
 	b.ReportMetric(float64(len(dst)), "contour_edges")
 	b.ReportMetric(float64(len(o.Creases())), "creases")
 }
+
+// BenchmarkDrawRasterizeMesh1280x800 is BenchmarkDrawRasterize1280x800's
+// drawing without the simulation, for the 201,600-triangle mesh pan
+// (fixture.MeshPanScene): Draw with onion skin +-3, arc, ticks, axes and
+// grid, then rasterise into a reused 1280 x 800 image. The outline is
+// made once, before the timer.
+func BenchmarkDrawRasterizeMesh1280x800(b *testing.B) {
+	sc, err := fixture.MeshPanScene(600, 24, 2.9, 4.5, 2, 0)
+	if err != nil {
+		b.Fatal(err)
+	}
+	sc.Frame = sc.Take.ApexFrame
+	cam := wire.NewCamera(wire.Free, 1280, 800)
+	cam.Frame(wire.Bounds(sc))
+	dst := image.NewRGBA(image.Rect(0, 0, 1280, 800))
+	pal := wire.DefaultPalette()
+	var n int
+	b.ReportAllocs()
+	for b.Loop() {
+		d := wire.Draw(cam, sc)
+		n = len(d.Segments)
+		wire.RasterizeInto(dst, d, pal)
+	}
+	b.ReportMetric(float64(n), "segments")
+}

@@ -51,17 +51,18 @@ type Outline struct {
 	normal  [][3]float64 // unit outward normal of each face; zero for a degenerate face
 	offset  []float64    // normal . first vertex of each face
 	extreme []int32      // farthest vertex along each sample direction, without repeats
-	// Faces are kept in patches (see buildPatches): inner lists each
-	// patch's smooth edges (indices into smooth and sides) and border the
-	// smooth edges between two patches.
+	// Faces are kept in patches (see buildPatches); smooth and sides list
+	// each patch's own edges in turn, then the edges between patches in
+	// runs by the pair of patches.
 	// Crease chains (see buildChains): chain i is
 	// chainVerts[chainStart[i]:chainStart[i+1]].
 	chainVerts []int32
 	chainStart []int32
 	patches    []patch
 	tri        [][3]int32 // the triangles in patch order
-	inner      []int32
-	border     []int32
+	inner      []int32    // while building only
+	border     []int32    // while building only
+	borderFrom int32      // the first border edge in smooth and sides
 	runs       []borderRun
 	reach      struct { // the last Reach
 		sync.Mutex
@@ -278,21 +279,21 @@ func (o *Outline) Contour(dst [][2]int32, view r3.Vec, ortho bool, front []bool)
 				front[f] = n[0]*wx+n[1]*wy+n[2]*wz > o.offset[f]
 			}
 		}
-		for _, e := range o.inner[pa.from:pa.to] {
-			if s := o.sides[e]; front[s[0]] != front[s[1]] {
-				dst = append(dst, o.smooth[e])
+		for k := pa.from; k < pa.to; k++ {
+			if s := o.sides[k]; front[s[0]] != front[s[1]] {
+				dst = append(dst, o.smooth[k])
 			}
 		}
 	}
-	from := int32(0)
+	from := o.borderFrom
 	for _, r := range o.runs {
 		if decided[r.p0] && decided[r.p1] && verdict[r.p0] == verdict[r.p1] {
 			from = r.to
 			continue // both sides turn the same way
 		}
-		for _, e := range o.border[from:r.to] {
-			if s := o.sides[e]; front[s[0]] != front[s[1]] {
-				dst = append(dst, o.smooth[e])
+		for k := from; k < r.to; k++ {
+			if s := o.sides[k]; front[s[0]] != front[s[1]] {
+				dst = append(dst, o.smooth[k])
 			}
 		}
 		from = r.to
@@ -338,6 +339,18 @@ func MeshOutline(m *mesh.Mesh) *Outline {
 	outlines.Unlock()
 	e.once.Do(func() { e.o = NewOutline(m.V, m.T, CreaseAngle) })
 	return e.o
+}
+
+// PrepareOutlines makes (or finds) the outline of every mesh part of p, so
+// that a later Draw of the prop on another goroutine, such as the UI's,
+// only looks them up. A nil prop is fine.
+func PrepareOutlines(p *physics.Prop) {
+	if p == nil {
+		return
+	}
+	for i := range p.Parts {
+		partOutline(&p.Parts[i])
+	}
 }
 
 // partOutline returns the outline of a mesh part, or nil for a primitive.

@@ -8,6 +8,7 @@ import (
 	"gonum.org/v1/gonum/spatial/r3"
 
 	"propflight/internal/fixture"
+	"propflight/physics"
 	"propflight/physics/mesh"
 	"propflight/widgets/wire"
 )
@@ -377,5 +378,18 @@ func TestOutline_Reach(t *testing.T) {
 		if got := o.Reach(c); got != want {
 			t.Errorf("Reach(%v) = %.17g, want %.17g", c, got, want)
 		}
+	}
+}
+
+// TestPrepareOutlines: after PrepareOutlines the mesh part's outline is
+// the cached one Draw will use; primitives and a nil prop are passed over.
+func TestPrepareOutlines(t *testing.T) {
+	v, tr := weldedBox(r3.Vec{X: 1, Y: 1, Z: 1})
+	m := &mesh.Mesh{V: v, T: tr}
+	p := &physics.Prop{Parts: []physics.Part{{Shape: physics.Box, Size: r3.Vec{X: 1, Y: 1, Z: 1}}, {Shape: physics.MeshShape, Mesh: m}}}
+	wire.PrepareOutlines(p)
+	wire.PrepareOutlines(nil)
+	if o := wire.MeshOutline(m); o == nil || len(o.Creases()) != 12 {
+		t.Fatalf("outline %v", o)
 	}
 }

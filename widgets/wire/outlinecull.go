@@ -23,7 +23,7 @@ type patch struct {
 	sinH   float64
 	centre r3.Vec
 	radius float64
-	// edges[from:to] of Outline.inner are the smooth edges with both faces
+	// Smooth edges from to to (Outline.sides and smooth) have both faces
 	// in the patch.
 	from, to int32
 }
@@ -191,13 +191,25 @@ func (o *Outline) buildPatches(v []r3.Vec, t [][3]int32) {
 		for j < len(o.border) && pair(o.border[j]) == k {
 			j++
 		}
-		o.runs = append(o.runs, borderRun{p0: int32(k >> 32), p1: int32(uint32(k)), to: int32(j)})
+		o.runs = append(o.runs, borderRun{p0: int32(k >> 32), p1: int32(uint32(k)), to: int32(len(o.inner) + j)})
 		i = j
 	}
+	// Lay the smooth edges out in that order, each patch's inner edges
+	// then the border runs, so that Contour reads them in one sweep.
+	perm := append(append(make([]int32, 0, len(o.sides)), o.inner...), o.border...)
+	sides := make([][2]int32, len(perm))
+	smooth := make([][2]int32, len(perm))
+	for k, e := range perm {
+		sides[k], smooth[k] = o.sides[e], o.smooth[e]
+	}
+	o.sides, o.smooth = sides, smooth
+	o.borderFrom = int32(len(o.inner))
+	o.inner, o.border = nil, nil
 }
 
-// borderRun is a run of Outline.border, the edges between patches p0 and
-// p1, up to (not including) border[to]; it starts where the last run ended.
+// borderRun is a run of the border edges (those after
+// Outline.borderFrom), the edges between patches p0 and p1, up to (not
+// including) edge to; it starts where the last run ended.
 type borderRun struct{ p0, p1, to int32 }
 
 // normalBin sorts unit normals into 96 bins: the cube face the normal
