@@ -97,9 +97,13 @@ type FootageView struct {
 	// while it has the focus (the window steps frames with them).
 	OnOtherKey func(*fyne.KeyEvent)
 
-	src      FrameSource
-	frame    int
-	img      image.Image // the frame shown, nil when msg is shown
+	src   FrameSource
+	frame int
+	img   image.Image // the frame shown, nil when msg is shown
+	shown struct {    // the reduced copy of a huge img (shownImage)
+		src image.Image
+		img *image.RGBA
+	}
 	msg      string
 	marks    []FootageMark
 	overlay  image.Image

@@ -2,6 +2,7 @@ package widgets
 
 import (
 	"image/color"
+	"math"
 
 	"fyne.io/fyne/v2"
 	"fyne.io/fyne/v2/canvas"
@@ -108,7 +109,13 @@ func (r *footageRenderer) rebuild(size fyne.Size) {
 		pos := fyne.NewPos(float32(ox), float32(oy))
 		sz := fyne.NewSize(float32(s*float64(w)), float32(s*float64(h)))
 		if v.img != nil {
-			r.frame.Image = v.img
+			scale := float32(1)
+			if a := fyne.CurrentApp(); a != nil {
+				if c := a.Driver().CanvasForObject(v); c != nil {
+					scale = c.Scale()
+				}
+			}
+			r.frame.Image = v.shownImage(v.img, int(math.Ceil(float64(sz.Width*scale))), int(math.Ceil(float64(sz.Height*scale))))
 			r.frame.Move(pos)
 			r.frame.Resize(sz)
 			r.objects = append(r.objects, r.frame)

@@ -28,8 +28,16 @@ func (p *footagePane) overlayCamera() (cam wire.Camera, ok bool) {
 	}
 	w, h := p.seq.Size()
 	ox, oy := r.CentreAt(float64(p.offsetFrames()))
-	return footage.OverlayCamera(r.MetresPerPixel, [2]float64{ox, oy}, tk.Frames[0].CM, w, h), true
+	// The view stretches the overlay over the frame, so a huge clip's
+	// overlay is drawn k times coarser (k pixels of the clip to one),
+	// within maxOverlayPixels, not at the clip's own size.
+	k := max(1, math.Ceil(math.Sqrt(float64(w)*float64(h)/maxOverlayPixels)))
+	return footage.OverlayCamera(r.MetresPerPixel*k, [2]float64{ox / k, oy / k}, tk.Frames[0].CM, int(math.Ceil(float64(w)/k)), int(math.Ceil(float64(h)/k))), true
 }
+
+// maxOverlayPixels bounds the overlay raster: 4 megapixels, twice a 1080p
+// frame (a 6000 x 6000 clip would otherwise make a 144 MB raster a frame).
+const maxOverlayPixels = 4_000_000
 
 // renderOverlay draws the take over the footage frame shown, when the
 // overlay is on and there is a fit to place it.
