@@ -62,6 +62,11 @@ func HelpPage(name string) string {
 	return b.String()
 }
 
+// maxChoicesInLabel is the longest list of choices a flag's label shows
+// ("--view front|side|top|free"); a longer one shows the placeholder and the help
+// line names the choices (a test checks it does).
+const maxChoicesInLabel = 22
+
 // flagLabel is "-o, --output OUT": the aliases, the name and the value.
 func flagLabel(f *Flag) string {
 	var parts []string
@@ -72,7 +77,7 @@ func flagLabel(f *Flag) string {
 	}
 	label := strings.Join(append(parts, f.Name), ", ")
 	switch {
-	case len(f.Choices) > 0:
+	case len(f.Choices) > 0 && len(strings.Join(f.Choices, "|")) <= maxChoicesInLabel:
 		label += " " + strings.Join(f.Choices, "|")
 	case f.Value != "":
 		label += " " + f.Value

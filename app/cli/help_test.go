@@ -73,6 +73,11 @@ func TestHelp_Truthful(t *testing.T) {
 			if !strings.Contains(page, flagLabel(f)) {
 				t.Errorf("%s: page lacks %s", s.Name, flagLabel(f))
 			}
+			for _, c := range f.Choices {
+				if !strings.Contains(page, c) {
+					t.Errorf("%s: page does not name %s's choice %s", s.Name, f.Name, c)
+				}
+			}
 			if f.Default == "" {
 				continue
 			}

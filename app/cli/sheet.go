@@ -25,8 +25,10 @@ func init() {
 			forceFlag,
 			{Name: "--paper", Value: "PAPER", Choices: []string{"a4", "letter"}, Default: "a4", Help: "paper size"},
 			twosFlag,
+			{Name: "--view", Value: "VIEW", Choices: sheet.PoseViewNames, Default: "best",
+				Help: "poses from front, side, top, spin (along L), free or best"},
 			startFrameFlag,
-			{Name: "--start-timecode", Value: "TC", Default: "00:00:00:00", Help: "HH:MM:SS:FF of the release frame (a shot: 01:00:00:00)"},
+			{Name: "--start-timecode", Value: "TC", Default: "00:00:00:00", Help: "HH:MM:SS:FF of the release (a shot: 01:00:00:00)"},
 			{Name: "--non-drop", Help: "at 29.97 and 59.94 fps: non-drop timecode (else drop-frame, ;FF)"},
 		}, sheetLandingFlags...),
 		Check: func(c *Command) error {
@@ -54,6 +56,9 @@ func runSheet(out io.Writer, cmd *Command) error {
 	}
 	opt := sheet.Options{Paper: cmd.Text("--paper"), Twos: cmd.Switch("--twos"), Progress: cmd.progress.start("laying out the timing sheet"), StartFrame: cmd.Int("--start-frame"),
 		NonDropTimecode: cmd.Switch("--non-drop")}
+	if opt.PoseView, err = sheet.ParsePoseView(cmd.Text("--view")); err != nil {
+		return usagef("sheet: --view: %v", err)
+	}
 	rate := f.scene.Throw.FPS
 	drop := rate.IsDropFrame() && !opt.NonDropTimecode
 	if opt.StartTimecode, err = rate.ParseTimecode(cmd.Text("--start-timecode"), drop); err != nil {

@@ -38,7 +38,7 @@ func (s *sheet) horizontal() (func(r3.Vec) float64, string) {
 		"distance along the heading " + fixed(heading, 1) + "° from release (m)"
 }
 
-// chart draws the side view of the centre-of-mass arc in the box x, y, w,
+// chart draws the centre-of-mass arc seen square to the throw in the box x, y, w,
 // h: equal scale on both axes, a grid at a round spacing, the ground, the
 // arc from release to first contact, a tick across the arc at every frame
 // (longer at keys and breakdowns), frame numbers where they fit, and the
@@ -50,7 +50,14 @@ func (s *sheet) chart(x, y, w, h float64) {
 	fr := tk.Frames
 	hx, hName := s.horizontal()
 	bottom := y + h
-	y = s.section(x, y, w, "Centre-of-mass arc, side view: equal scale, one tick per frame")
+	// Named as the pose page names its views (viewWords): a throw along x
+	// is seen from the front; one with a sideways part, square to its
+	// heading.
+	viewName := viewWords(PoseFront)
+	if hName != "x (m)" {
+		viewName = "view square to the heading (distance right, y up)"
+	}
+	y = s.section(x, y, w, "Centre-of-mass arc, "+viewName+": equal scale, one tick per frame")
 
 	// Plot area, leaving room for the axis numbers.
 	const padL, padB, padT = 11.0, 8.0, 2.0

@@ -60,21 +60,16 @@ func (s *sheet) posePage() error {
 	s.newPage()
 	x, w := margin, s.width()
 	y := contentTop + 1
-	view := s.opt.PoseView
-	viewWords := "front view (x right, y up)"
-	switch view {
-	case wire.Side:
-		viewWords = "side view (−z right, y up)"
-	case wire.Top:
-		viewWords = "top view (x right, −z up)"
-	case wire.Free:
-		viewWords = "three-quarter perspective view"
+	view := s.poseView
+	words := viewWords(view)
+	if s.opt.PoseView == PoseBest {
+		words += " (chosen: it shows the poses largest)"
 	}
 	y = s.section(x, y, w, "Poses: the keys, the breakdowns and every "+ordinal(s.poseStep)+" frame")
 	s.font("", sizeSmall)
 	ink(p, inkSoft)
 	p.SetXY(x, y)
-	p.CellFormat(w, lineH(sizeSmall), "Drawn from the same lines as the preview, "+viewWords+", all at one scale; the grey line is the ground when it is in view.", "", 0, "L", false, 0, "")
+	p.CellFormat(w, lineH(sizeSmall), "Same lines as the preview, "+words+", one scale; grey line: the ground.", "", 0, "L", false, 0, "")
 	y += lineH(sizeSmall) + 2
 
 	rows := (len(s.poses) + poseCols - 1) / poseCols
@@ -109,7 +104,7 @@ func ordinal(n int) string {
 }
 
 // poseCell draws one pose: frame f in the cell at x, y of w by h mm.
-func (s *sheet) poseCell(x, y, w, h float64, f int, radius float64, view wire.View, pal *wire.Palette) {
+func (s *sheet) poseCell(x, y, w, h float64, f int, radius float64, view PoseView, pal *wire.Palette) {
 	p := s.pdf
 	fr := &s.tk.Frames[f]
 	role := s.tm.roles[f]
@@ -146,7 +141,7 @@ func (s *sheet) poseCell(x, y, w, h float64, f int, radius float64, view wire.Vi
 	aw, ah := w-1.2, h-poseHeadH-poseFootH-0.6
 	pxW, pxH := max(int(math.Round(aw*pxPerMM)), 16), max(int(math.Round(ah*pxPerMM)), 16)
 	mmX, mmY := aw/float64(pxW), ah/float64(pxH)
-	cam := wire.NewCamera(view, pxW, pxH)
+	cam := poseCamera(view, pxW, pxH, &s.sc.Mass, s.tk)
 	rr := radius * poseRoom
 	cam.Frame(r3.Box{Min: r3.Sub(fr.CM, r3.Vec{X: rr, Y: rr, Z: rr}), Max: r3.Add(fr.CM, r3.Vec{X: rr, Y: rr, Z: rr})})
 	sc := wire.Scene{Prop: &s.sc.Prop, Mass: &s.sc.Mass, Take: s.tk, Frame: f, GroundY: s.sc.Throw.GroundY}

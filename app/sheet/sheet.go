@@ -14,7 +14,6 @@ import (
 	"propflight/app/project"
 	"propflight/internal/printable"
 	"propflight/physics"
-	"propflight/widgets/wire"
 )
 
 // Caution is the safety caution every page carries, word for word from
@@ -65,10 +64,10 @@ type Options struct {
 	// NonDropTimecode counts the timecode non-drop at 30000/1001 and
 	// 60000/1001 fps, where it is drop-frame (HH:MM:SS;FF) by default.
 	NonDropTimecode bool
-	// PoseView is where the pose drawings look from; the zero value is
-	// wire.Front (x right, y up: the same axes as the arc chart). Free
-	// gives wire.NewCamera's three-quarter perspective view.
-	PoseView wire.View
+	// PoseView is where the pose drawings look from; the zero value,
+	// PoseBest, picks the view that shows the poses largest
+	// (BestPoseView). The page names the view it used.
+	PoseView PoseView
 }
 
 // Input is what the sheet shows. Scene holds the prop, its mass properties
@@ -135,6 +134,8 @@ type sheet struct {
 	poses []int
 	// poseStep is the spacing of the in-between poses, frames.
 	poseStep int
+	// poseView is the view the poses are drawn from (never PoseBest).
+	poseView PoseView
 	pw, ph   float64 // page size, mm
 	done     int
 	total    int
@@ -161,8 +162,8 @@ func newSheet(in Input, opt Options) (*sheet, error) {
 	if opt.StartTimecode < 0 || opt.StartTimecode > MaxStartFrame {
 		return nil, fmt.Errorf("start-timecode: must be 00:00:00:00 or later and under a hundred hours")
 	}
-	if opt.PoseView < wire.Front || opt.PoseView > wire.Free {
-		return nil, fmt.Errorf("pose view: must be front, side, top or free, not %v", opt.PoseView)
+	if opt.PoseView < PoseBest || opt.PoseView > PoseFree {
+		return nil, fmt.Errorf("pose view: must be one of %s, not %v", strings.Join(PoseViewNames, ", "), opt.PoseView)
 	}
 	s := &sheet{in: in, opt: opt, sc: in.Scene, tk: in.Take, v: in.Verdict, thr: physics.DefaultThresholds()}
 	if in.Scene != nil && in.Scene.Thresholds != (physics.Thresholds{}) {
@@ -182,6 +183,10 @@ func newSheet(in Input, opt Options) (*sheet, error) {
 	s.tm = analyse(s.tk, s.sc.Throw.FPS, &s.v)
 	s.rows = s.tm.rows(opt.Twos)
 	s.poses, s.poseStep = s.tm.poseFrames(opt.Twos, maxPoses)
+	s.poseView = opt.PoseView
+	if s.poseView == PoseBest {
+		s.poseView = BestPoseView(&s.sc.Prop, &s.sc.Mass, s.tk, s.poses)
+	}
 	s.total = 1 + len(s.poses) + len(s.rows)
 	if in.Landing != nil {
 		s.total++

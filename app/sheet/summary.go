@@ -1,6 +1,13 @@
 package sheet
 
-import "propflight/internal/printable"
+import (
+	"math"
+
+	"gonum.org/v1/gonum/num/quat"
+
+	"propflight/internal/printable"
+	"propflight/physics"
+)
 
 // Type sizes of the summary page, points.
 const (
@@ -149,7 +156,7 @@ func (s *sheet) partsTable(x, y, w float64) float64 {
 	cols := []struct {
 		head string
 		frac float64
-	}{{"part", 0.17}, {"shape", 0.10}, {"dimensions", 0.33}, {"mass", 0.17}, {"position (prop frame)", 0.23}}
+	}{{"part", 0.14}, {"shape", 0.09}, {"dimensions", 0.29}, {"mass", 0.14}, {"position (prop frame)", 0.19}, {"rotation x, y, z", 0.15}}
 	lh := lineH(sizeSmall) + 0.4
 	s.font("B", sizeSmall)
 	ink(p, inkSoft)
@@ -169,7 +176,7 @@ func (s *sheet) partsTable(x, y, w float64) float64 {
 		if name == "" {
 			name = "part " + itoa(i+1)
 		}
-		cells := []string{name, pt.Shape.String(), partDims(pt), partMass(pt), vec(pt.Position, 4) + " m"}
+		cells := []string{name, pt.Shape.String(), partDims(pt), partMass(pt), vec(pt.Position, 4) + " m", rotationText(pt.Orient)}
 		cx = x
 		for j, c := range cols {
 			p.SetXY(cx, y)
@@ -186,4 +193,33 @@ func (s *sheet) partsTable(x, y, w float64) float64 {
 		}
 	}
 	return y
+}
+
+// rotationText is a part's turn as the project file writes it,
+// rotation_deg: degrees about the prop's x, then y, then z axis (R = Rz Ry
+// Rx, as physics.EulerXYZ), recovered from the orientation; "none" for
+// no turn. An orientation has one such triple with |y| < 90 degrees
+// (away from y = ±90, where x and z turn about one axis), so the file's
+// own numbers come back whenever they lie in that range.
+func rotationText(q quat.Number) string {
+	x, y, z := eulerXYZ(q)
+	if math.Abs(x)+math.Abs(y)+math.Abs(z) < 5e-4 {
+		return "none"
+	}
+	return "(" + fixed(x, 1) + ", " + fixed(y, 1) + ", " + fixed(z, 1) + ")°"
+}
+
+// eulerXYZ returns the angles, degrees, with physics.EulerXYZ(x, y, z) = q
+// (up to sign), y in [-90, 90].
+func eulerXYZ(q quat.Number) (x, y, z float64) {
+	m := physics.Mat(physics.Normalize(q))
+	sy := math.Max(-1, math.Min(1, -m[2][0]))
+	y = math.Asin(sy)
+	if math.Abs(sy) < 1-1e-12 {
+		x = math.Atan2(m[2][1], m[2][2])
+		z = math.Atan2(m[1][0], m[0][0])
+	} else { // gimbal lock: put the whole turn in z
+		z = math.Atan2(-m[0][1], m[1][1])
+	}
+	return deg(x), deg(y), deg(z)
 }

@@ -8,10 +8,10 @@ import (
 
 // Frame table layout.
 const (
-	rowH       = 4.0 // mm a row
-	sizeRow    = 7.0 // points, row text
-	sizeMarkLo = 5.4 // points: the smallest the marks column shrinks to
-	sizeHead   = 6.6 // points, column heads
+	rowH       = 4.2 // mm a row
+	sizeRow    = 8.0 // points, row text (8 pt at least, for reading at the desk)
+	sizeMarkLo = 8.0 // points: the smallest the marks column shrinks to (then it is shortened)
+	sizeHead   = 8.0 // points, column heads
 	sizeUnit   = 5.6 // points, the unit line of the heads
 	headH      = 8.0 // mm, the two-line column heads
 	sizeNote   = 6.2 // points, footnotes
