@@ -238,13 +238,15 @@ func (o *Outline) Extremes() []int32 { return o.extreme }
 // Contour appends to dst the smooth edges on the contour seen from view,
 // given in the mesh's own frame: for an orthographic view, view is the
 // direction toward the viewer (any length); for a perspective view, the
-// eye's position. front is scratch space of at least one entry a face (it
-// may be nil; Contour grows it) and is returned for reuse.
+// eye's position. front is scratch space (it may be nil; Contour grows it
+// to one entry a face and two a patch) and is returned for reuse.
 //
 // A face turns toward the viewer when its outward normal n has n . view >
 // 0 (orthographic) or n . (view - a) > 0 for its vertex a (perspective);
 // an edge is on the contour when one of its faces turns toward the viewer
-// and the other does not.
+// and the other does not. Patches whose faces all turn one way are decided
+// whole (see patch.facing), which gives the same edges as testing every
+// face; the edges come in patch order, not mesh order.
 func (o *Outline) Contour(dst [][2]int32, view r3.Vec, ortho bool, front []bool) ([][2]int32, []bool) {
 	nf, np := len(o.normal), len(o.patches)
 	if cap(front) < nf+2*np {
