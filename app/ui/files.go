@@ -154,9 +154,13 @@ func (w *Window) confirmReplace(path string, replace func()) {
 // runs on "Replace anyway".
 func (w *Window) confirmReadOnly(path string, replace func()) {
 	base := printable.String(filepath.Base(path))
+	dir := filepath.Dir(path)
+	if abs, err := filepath.Abs(dir); err == nil {
+		dir = abs
+	}
 	w.ask(base+" is read-only",
 		fmt.Sprintf("%s in %s is read-only: someone protected it from changes. Replace it anyway? The new file keeps the read-only permission.",
-			base, printable.String(filepath.Dir(path))), 420,
+			base, printable.String(dir)), 420,
 		answer{label: "Cancel"},
 		answer{label: "Replace anyway", run: replace, look: widget.DangerImportance})
 }
