@@ -41,6 +41,9 @@ func TestNames_ControlCharactersEscapedOnTheTerminal(t *testing.T) {
 		{"sheet", path, "-o", filepath.Join(t.TempDir(), "s.pdf")},
 		{"export", path, "--format", "csv", "-o", filepath.Join(t.TempDir(), "t.csv")},
 		{"export", path, "--format", "gltf", "-o", filepath.Join(t.TempDir(), "t.glb")},
+		{"map", path, "--samples", "50"},
+		{"plan", path, "--land", "least:up"},
+		{"spread", path, "--samples", "20"},
 	} {
 		code, out, errs := run(t, args...)
 		if code != 0 {

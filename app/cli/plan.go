@@ -9,6 +9,7 @@ import (
 
 	"gonum.org/v1/gonum/spatial/r3"
 
+	"propflight/internal/printable"
 	"propflight/physics"
 )
 
@@ -118,7 +119,7 @@ func runPlan(out io.Writer, c *Command) error {
 		return err
 	}
 	p := func(format string, args ...any) { fmt.Fprintf(out, format+"\n", args...) }
-	p("%s  (%s)", sc.Name, src.label)
+	p("%s  (%s)", printable.String(sc.Name), printable.String(src.label))
 	p("")
 	p("Plan: land %s %s, within %g deg,", l.describe(), endText(spec.End), spec.Tolerance*180/math.Pi)
 	p("spinning %s to %s turns/s about the project's spin direction (a %s).", turnsText(spec.RateMin), turnsText(spec.RateMax), plan.Motion)

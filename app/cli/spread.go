@@ -10,6 +10,7 @@ import (
 
 	"gonum.org/v1/gonum/spatial/r3"
 
+	"propflight/internal/printable"
 	"propflight/physics"
 )
 
@@ -143,7 +144,7 @@ func runSpread(out io.Writer, c *Command) error {
 		_, err = fmt.Fprintf(out, "%s\n", data)
 		return err
 	}
-	fmt.Fprintf(out, "%s  (%s)\n\n", sc.Name, src.label)
+	fmt.Fprintf(out, "%s  (%s)\n\n", printable.String(sc.Name), printable.String(src.label))
 	writeSpreadText(out, sp, &spec, l, sc.Throw.FPS.FPS())
 	fmt.Fprintf(out, "\n%s\n", Safety)
 	return nil
