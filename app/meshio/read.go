@@ -6,12 +6,12 @@ import (
 	"io"
 	"io/fs"
 	"math"
-	"os"
 	"path/filepath"
 	"strings"
 
 	"gonum.org/v1/gonum/spatial/r3"
 
+	"propflight/app/fsutil"
 	"propflight/internal/units"
 )
 
@@ -174,7 +174,13 @@ func Transform(tris [][3]r3.Vec, scale float64, upZ bool) {
 
 // readLimited reads a whole file of at most MaxFileBytes.
 func readLimited(path string) ([]byte, error) {
-	f, err := os.Open(path)
+	// Only a regular file: a named pipe would block the load forever and a
+	// device never end (fsutil.OpenRegular).
+	f, err := fsutil.OpenRegular(path)
+	var nr *fsutil.NotRegularError
+	if errors.As(err, &nr) && nr.Kind == "a folder" {
+		return nil, fmt.Errorf("a folder, not a file: %s", path)
+	}
 	if err != nil {
 		return nil, openError(path, err)
 	}
