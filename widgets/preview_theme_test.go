@@ -32,7 +32,7 @@ func TestPreview_FollowsTheme(t *testing.T) {
 		w.Canvas().Capture()
 		return p.Image().(*image.RGBA).RGBAAt(1, 1)
 	}
-	nrgba := func(c color.NRGBA) color.RGBA { return color.RGBA{c.R, c.G, c.B, c.A} }
+	nrgba := func(c color.NRGBA) color.RGBA { return color.RGBA(c) } // the backgrounds are opaque, so the bytes are the same
 	a.Settings().SetTheme(variantTheme{theme.DefaultTheme(), theme.VariantLight})
 	p.Refresh()
 	if got, want := corner(), nrgba(wire.LightPalette().Background); got != want {
