@@ -16,7 +16,9 @@ import (
 // outside. A Mesh made by New is closed: every edge is run as often in one
 // direction as in the other (twice in all, or four times where two shells
 // touch along an edge), no triangle has zero area, and the enclosed volume
-// is positive. Treat it as read-only: its mass properties and support
+// is positive. (One exception: where the file closed a crack along a split
+// edge with a zero-area sliver, the sliver is dropped like any zero-area
+// triangle, so the two halves of that edge are run one way only.) Treat it as read-only: its mass properties and support
 // structure are computed once, on first use, and cached.
 type Mesh struct {
 	V []r3.Vec

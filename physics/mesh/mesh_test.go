@@ -334,3 +334,25 @@ func TestRadixSort(t *testing.T) {
 		}
 	}
 }
+
+// TestMesh_ConcurrentUse: the lazily built caches (moments, support tree,
+// reach) are safe to fill from several goroutines at once (run with -race).
+func TestMesh_ConcurrentUse(t *testing.T) {
+	m, _ := mustNew(t, sphereTris(12, 1))
+	want := m.Reach(r3.Vec{})
+	m2, _ := mustNew(t, sphereTris(12, 1))
+	done := make(chan float64)
+	for i := range 4 {
+		go func() {
+			u := v(float64(i), 1, 0.5)
+			s := m2.Support(u) + m2.Solid().Measure + m2.Surface().Measure
+			done <- s + m2.Reach(r3.Vec{})
+		}()
+	}
+	for range 4 {
+		<-done
+	}
+	if got := m2.Reach(r3.Vec{}); got != want {
+		t.Errorf("reach %g, want %g", got, want)
+	}
+}
