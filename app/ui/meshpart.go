@@ -26,7 +26,7 @@ import (
 // instead of dimensions (file, units, up axis, hollow wall).
 
 // meshChoice is the "add a part" entry that reads a part from a model file.
-const meshChoice = "mesh from a file…"
+const meshChoice = "mesh file…"
 
 // meshShape is the project file's name of the mesh shape.
 const meshShape = "mesh"

@@ -151,3 +151,17 @@ func TestWindow_PartBecomesMeshAndBack(t *testing.T) {
 		t.Errorf("back to a box: %+v (%v)", p, w.result.Err)
 	}
 }
+
+// TestWindow_AddMeshChoice_AsksForAFile: "mesh file…" in the add picker
+// opens a file dialog and adds nothing until a file is chosen.
+func TestWindow_AddMeshChoice_AsksForAFile(t *testing.T) {
+	w := newTestWindow(t, "frying-pan")
+	before := docBytes(t, w)
+	w.props.add.SetSelected(meshChoice)
+	if w.win.Canvas().Overlays().Top() == nil {
+		t.Fatal("no file dialog")
+	}
+	if string(docBytes(t, w)) != string(before) || w.props.add.Selected != "" {
+		t.Errorf("choosing %q changed the project or stayed selected", meshChoice)
+	}
+}
