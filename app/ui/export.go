@@ -48,6 +48,7 @@ type exportSettings struct {
 	replaceReadOnly bool
 	// landing is the Land it tab's landing page for the sheet, or nil.
 	landing func(*project.Scene) *sheet.Landing
+	opts    exportOptions // the Export Settings
 }
 
 // write returns the file-writing options of the settings.
@@ -57,7 +58,7 @@ func (s exportSettings) write() fsutil.Options {
 
 // exportSettings reads the settings an export uses from the controls.
 func (w *Window) exportSettings() exportSettings {
-	return exportSettings{twos: w.throw.onTwos(), view: w.view.preview.View(), landing: w.land.sheetPage()}
+	return exportSettings{twos: w.throw.onTwos(), view: w.view.preview.View(), landing: w.land.sheetPage(), opts: w.exportOpts}
 }
 
 // errExportCancelled is the work's answer to a Cancel press.
@@ -73,6 +74,8 @@ func (w *Window) exportMenu() *fyne.MenuItem {
 		item(csvJob()),
 		item(gltfJob()),
 		item(pngJob()),
+		fyne.NewMenuItemSeparator(),
+		fyne.NewMenuItem("Export Settings…", w.showExportOptions),
 	)
 	return m
 }
@@ -86,7 +89,12 @@ func sheetJob(paper string) exportJob {
 				in.Landing = set.landing(res.Scene)
 			}
 			var buf bytes.Buffer
-			err := sheet.Write(&buf, in, sheet.Options{Paper: paper, Twos: set.twos, Progress: progress, Cancel: cancel})
+			tc, err := set.opts.startTimecodeAt(res.Scene.Throw.FPS)
+			if err != nil {
+				return "", err
+			}
+			err = sheet.Write(&buf, in, sheet.Options{Paper: paper, Twos: set.twos, Progress: progress, Cancel: cancel,
+				StartFrame: set.opts.startFrame, StartTimecode: tc, NonDropTimecode: set.opts.nonDrop, PoseView: set.opts.poseView})
 			if errors.Is(err, sheet.ErrCancelled) {
 				return "", errExportCancelled
 			}
@@ -100,11 +108,12 @@ func sheetJob(paper string) exportJob {
 func csvJob() exportJob {
 	return exportJob{title: "Take as CSV", ext: ".csv",
 		work: func(path string, res editor.Result, set exportSettings, _ func(int, int), _ <-chan struct{}) (string, error) {
-			write := export.WriteCSV
-			if set.twos {
-				write = export.WriteCSVTwos
+			opt := export.CSVOptions{Twos: set.twos, StartFrame: set.opts.startFrame, ZUp: set.opts.zUp}
+			what := "CSV take"
+			if opt.ZUp {
+				what += " (z up)"
 			}
-			return "CSV take", fsutil.WriteFile(path, set.write(), func(f io.Writer) error { return write(f, res.Take) })
+			return what, fsutil.WriteFile(path, set.write(), func(f io.Writer) error { return export.WriteCSVWith(f, res.Take, opt) })
 		}}
 }
 
@@ -123,7 +132,7 @@ func pngJob() exportJob {
 		work: func(dir string, res editor.Result, set exportSettings, progress func(int, int), cancel <-chan struct{}) (string, error) {
 			view := set.view
 			opt := export.PNGOptions{Width: 1280, Height: 720, View: view, Twos: set.twos, Transparent: true, Cancel: cancel,
-				ReplaceReadOnly: set.replaceReadOnly}
+				ReplaceReadOnly: set.replaceReadOnly, StartFrame: set.opts.startFrame}
 			files, err := export.WritePNGSequence(dir, exportInput(res), opt, progress)
 			if errors.Is(err, export.ErrCancelled) {
 				return "", errExportCancelled

@@ -53,6 +53,7 @@ func loadRecent(a fyne.App) *editor.Recent {
 // restorePrefs applies the saved settings to a newly built window.
 func (w *Window) restorePrefs() {
 	prefs := w.app.Preferences()
+	w.exportOpts = w.loadExportOptions()
 	if prefs.Bool(prefImperial) {
 		w.menu.imperial.Checked = true
 		w.setImperial(true)

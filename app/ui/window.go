@@ -61,8 +61,9 @@ type Window struct {
 	centre   *fyne.Container  // the preview, or the split of preview and footage
 	split    *container.Split // preview | footage
 
-	preset     string       // the preset the project came from, "" for a file or a new one
-	lastDialog *shownDialog // the last dialog shown (for tests)
+	preset     string        // the preset the project came from, "" for a file or a new one
+	lastDialog *shownDialog  // the last dialog shown (for tests)
+	exportOpts exportOptions // File > Export > Export Settings
 }
 
 // computer is what the window asks for recomputes: editor.Worker, or the
