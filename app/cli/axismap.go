@@ -79,11 +79,7 @@ type mapDirection struct {
 }
 
 func runMap(out io.Writer, c *Command) error {
-	src, err := load(c)
-	if err != nil {
-		return err
-	}
-	sc, err := src.doc.Build()
+	src, sc, err := loadScene(c)
 	if err != nil {
 		return err
 	}

@@ -85,11 +85,7 @@ func runPlan(out io.Writer, c *Command) error {
 	if err != nil {
 		return err
 	}
-	src, err := load(c)
-	if err != nil {
-		return err
-	}
-	sc, err := src.doc.Build()
+	src, sc, err := loadScene(c)
 	if err != nil {
 		return err
 	}

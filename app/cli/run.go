@@ -177,6 +177,19 @@ func load(cmd *Command) (*source, error) {
 	return &source{label: label, doc: doc}, nil
 }
 
+// loadScene reads the command's project (load) and builds its scene.
+func loadScene(cmd *Command) (*source, *project.Scene, error) {
+	src, err := load(cmd)
+	if err != nil {
+		return nil, nil, err
+	}
+	sc, err := src.doc.Build()
+	if err != nil {
+		return nil, nil, err
+	}
+	return src, sc, nil
+}
+
 // flight is a built scene with its verdict and take.
 type flight struct {
 	src     *source

@@ -117,11 +117,7 @@ func runSpread(out io.Writer, c *Command) error {
 	if err != nil {
 		return err
 	}
-	src, err := load(c)
-	if err != nil {
-		return err
-	}
-	sc, err := src.doc.Build()
+	src, sc, err := loadScene(c)
 	if err != nil {
 		return err
 	}
