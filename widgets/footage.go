@@ -9,6 +9,8 @@ import (
 	"fyne.io/fyne/v2"
 	"fyne.io/fyne/v2/driver/desktop"
 	"fyne.io/fyne/v2/widget"
+
+	"propflight/internal/mark"
 )
 
 // Declare conformity with the interfaces FootageView implements.
@@ -28,18 +30,6 @@ type FrameSource interface {
 	Len() int         // number of frames, frames 0 to Len()-1
 	Size() (w, h int) // frame size, pixels
 	Frame(i int) (image.Image, error)
-}
-
-// FootageMark is a mark as the view shows it: the prop's centre (X, Y) on
-// footage frame Frame and, with HasSecond, a second point (X2, Y2) on the
-// prop. Coordinates are the footage's image pixels: origin at the frame's
-// top-left corner, x to the right, y down; pixel (i, j) covers [i, i+1) x
-// [j, j+1).
-type FootageMark struct {
-	Frame     int
-	X, Y      float64
-	HasSecond bool
-	X2, Y2    float64
 }
 
 // Hit and drawing sizes of marks, in device-independent units.
@@ -105,7 +95,7 @@ type FootageView struct {
 		img *image.RGBA
 	}
 	msg      string
-	marks    []FootageMark
+	marks    []mark.Mark
 	overlay  image.Image
 	opacity  float64
 	selected int // index of the selected mark, -1 for none
@@ -200,10 +190,12 @@ func (v *FootageView) Frame() int { return v.frame }
 // shown.
 func (v *FootageView) Message() string { return v.msg }
 
-// SetMarks replaces the marks (the slice is copied). Only the marks of the
+// SetMarks replaces the marks (the slice is copied), in the footage's
+// image pixels: origin at the frame's top-left corner, x to the right, y
+// down; pixel (i, j) covers [i, i+1) x [j, j+1). Only the marks of the
 // frame shown are drawn as crosses; the centres of the others are faint
 // dots, so the marked arc shows.
-func (v *FootageView) SetMarks(marks []FootageMark) {
+func (v *FootageView) SetMarks(marks []mark.Mark) {
 	v.marks = slices.Clone(marks)
 	if v.selected >= len(v.marks) || (v.selected >= 0 && v.marks[v.selected].Frame != v.frame) {
 		v.selected = -1
@@ -213,7 +205,7 @@ func (v *FootageView) SetMarks(marks []FootageMark) {
 }
 
 // Marks returns a copy of the marks.
-func (v *FootageView) Marks() []FootageMark { return slices.Clone(v.marks) }
+func (v *FootageView) Marks() []mark.Mark { return slices.Clone(v.marks) }
 
 // Selected returns the index of the selected mark, -1 for none.
 func (v *FootageView) Selected() int { return v.selected }
@@ -443,7 +435,7 @@ func (v *FootageView) dragPoint(d markDrag) (x, y float64) {
 }
 
 // shownMark returns mark i as drawn: moved by a drag in progress.
-func (v *FootageView) shownMark(i int) FootageMark {
+func (v *FootageView) shownMark(i int) mark.Mark {
 	m := v.marks[i]
 	if d := v.drag; d.active && d.index == i {
 		x, y := v.dragPoint(d)

@@ -10,6 +10,8 @@ import (
 	"fyne.io/fyne/v2"
 	"fyne.io/fyne/v2/driver/desktop"
 	"fyne.io/fyne/v2/test"
+
+	"propflight/internal/mark"
 )
 
 // fakeFootage is a FrameSource of n frames of w x h pixels: the left half
@@ -171,7 +173,7 @@ func TestFootageView_TapOnMark_SelectsAndDeletes(t *testing.T) {
 	var marked, deleted []int
 	v.OnMark = func(x, y float64, second bool) { marked = append(marked, 1) }
 	v.OnMarkDeleted = func(i int) { deleted = append(deleted, i) }
-	v.SetMarks([]FootageMark{
+	v.SetMarks([]mark.Mark{
 		{Frame: 1, X: 320, Y: 180},                                    // another frame: not selectable here
 		{Frame: 0, X: 320, Y: 180, HasSecond: true, X2: 400, Y2: 180}, // index 1
 		{Frame: 0, X: 100, Y: 100},                                    // index 2
@@ -241,7 +243,7 @@ func TestFootageView_Drag_MovesMark(t *testing.T) {
 	var moves []move
 	v.OnMarkMoved = func(i int, x, y float64) { moves = append(moves, move{i, x, y, false}) }
 	v.OnSecondMoved = func(i int, x, y float64) { moves = append(moves, move{i, x, y, true}) }
-	v.SetMarks([]FootageMark{{Frame: 0, X: 320, Y: 180, HasSecond: true, X2: 400, Y2: 180}})
+	v.SetMarks([]mark.Mark{{Frame: 0, X: 320, Y: 180, HasSecond: true, X2: 400, Y2: 180}})
 
 	// A desktop drag: press on the centre (view 200, 150), two moves of
 	// (10, 5) and (5, 0) units, release. The centre moves by 15 / 0.625
@@ -362,7 +364,7 @@ func TestFootageView_Render(t *testing.T) {
 
 	// A mark at image (160, 300): view (100, 225). Its cross arm lies at
 	// x from 94 to 106 on row 225.
-	v.SetMarks([]FootageMark{{Frame: 0, X: 160, Y: 300}})
+	v.SetMarks([]mark.Mark{{Frame: 0, X: 160, Y: 300}})
 	img = w.Canvas().Capture()
 	if c := at(104, 225); !close(c, markColor, 40) {
 		t.Errorf("mark cross %v, want %v", c, markColor)

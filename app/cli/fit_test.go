@@ -12,6 +12,7 @@ import (
 	"testing"
 
 	"propflight/app/footage"
+	"propflight/internal/mark"
 )
 
 // writeRef6Marks writes REFERENCES.md §6's noisy data as a marks file:
@@ -20,10 +21,10 @@ import (
 func writeRef6Marks(t *testing.T, dir string) string {
 	t.Helper()
 	noise := []float64{0.3, -0.2, 0.1, 0.4, -0.5, 0.2, 0.0, -0.3, 0.25, -0.1, 0.35, -0.4}
-	var marks []footage.Mark
+	var marks []mark.Mark
 	for n := range 12 {
 		f := float64(n)
-		marks = append(marks, footage.Mark{Frame: n, X: 100 + 5*f, Y: 400 - 30*f + 4.256358507*f*f + noise[n]})
+		marks = append(marks, mark.Mark{Frame: n, X: 100 + 5*f, Y: 400 - 30*f + 4.256358507*f*f + noise[n]})
 	}
 	var buf bytes.Buffer
 	if err := footage.WriteMarks(&buf, marks); err != nil {

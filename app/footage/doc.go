@@ -23,7 +23,7 @@
 //
 // Limits: Open reads every frame's header first ([image.DecodeConfig],
 // a cheap read) and refuses a frame that declares more than
-// Options.MaxPixels pixels or a side over MaxMarkCoord, naming the file, so
+// Options.MaxPixels pixels or a side over mark.MaxCoord, naming the file, so
 // a hostile or broken header cannot make the program allocate gigabytes.
 // Options.CacheBytes bounds the footage's memory in the process: decoded
 // frames are kept in a least-recently-used cache that also reserves each

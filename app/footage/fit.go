@@ -5,6 +5,8 @@ import (
 	"math"
 
 	"gonum.org/v1/gonum/mat"
+
+	"propflight/internal/mark"
 )
 
 // Ranges of the fit's inputs and of what it solves. They keep every
@@ -118,7 +120,7 @@ const MinFitMarks = 3
 // Errors: fewer than 3 marks, marks that do not curve downward (c2 <= 0:
 // image y grows downward, so a real throw has c2 > 0), a frame marked
 // twice, bad options, or a second point on its centre.
-func Fit(marks []Mark, opt FitOptions) (*FitResult, error) {
+func Fit(marks []mark.Mark, opt FitOptions) (*FitResult, error) {
 	if err := opt.check(); err != nil {
 		return nil, err
 	}

@@ -6,6 +6,7 @@ import (
 	"strings"
 	"testing"
 
+	"propflight/internal/mark"
 	"propflight/physics"
 )
 
@@ -33,15 +34,15 @@ var ref6Noise = []float64{0.3, -0.2, 0.1, 0.4, -0.5, 0.2, 0.0, -0.3, 0.25, -0.1,
 // ref6Marks returns the §6 data y_n = 400 - 30 n + 4.256358507 n^2,
 // n = 0..11, with the noise list added when noisy, and x_n = 100 + 5 n
 // (our own straight line; §6 gives y only).
-func ref6Marks(noisy bool) []Mark {
-	var m []Mark
+func ref6Marks(noisy bool) []mark.Mark {
+	var m []mark.Mark
 	for n := range 12 {
 		f := float64(n)
 		y := 400 - 30*f + 4.256358507*f*f
 		if noisy {
 			y += ref6Noise[n]
 		}
-		m = append(m, Mark{Frame: n, X: 100 + 5*f, Y: y})
+		m = append(m, mark.Mark{Frame: n, X: 100 + 5*f, Y: y})
 	}
 	return m
 }
@@ -137,14 +138,14 @@ func TestFit_SolveFPSAndGravity(t *testing.T) {
 // counter-clockwise (3 turns per second at 24 fps).
 func TestFit_ThrowSettings(t *testing.T) {
 	const fps, s = 24.0, 0.002
-	var marks []Mark
+	var marks []mark.Mark
 	for n := range 40 {
 		tm := float64(n) / fps
 		x := 3 * tm
 		y := 8*tm - physics.StandardGravity*tm*tm/2
 		a := (10 + 45*float64(n)) * math.Pi / 180
 		X, Y := 100+x/s, 2000-y/s
-		marks = append(marks, Mark{Frame: n, X: X, Y: Y, HasSecond: true, X2: X + 50*math.Cos(a), Y2: Y - 50*math.Sin(a)})
+		marks = append(marks, mark.Mark{Frame: n, X: X, Y: Y, HasSecond: true, X2: X + 50*math.Cos(a), Y2: Y - 50*math.Sin(a)})
 	}
 	r, err := Fit(marks, FitOptions{FPS: fps, Gravity: physics.StandardGravity})
 	if err != nil {
@@ -194,7 +195,7 @@ func TestFit_ThrowSettings(t *testing.T) {
 		t.Errorf("ToThrow(0) = %v, want an error naming metres_per_pixel", err)
 	}
 	// A prop thrown downward never comes back to its release height.
-	down := []Mark{{Frame: 0, Y: 100}, {Frame: 1, Y: 110}, {Frame: 2, Y: 122}, {Frame: 3, Y: 136}}
+	down := []mark.Mark{{Frame: 0, Y: 100}, {Frame: 1, Y: 110}, {Frame: 2, Y: 122}, {Frame: 3, Y: 136}}
 	r, err = Fit(down, FitOptions{FPS: 24})
 	if err != nil {
 		t.Fatal(err)
@@ -206,13 +207,13 @@ func TestFit_ThrowSettings(t *testing.T) {
 
 // turnMarks returns marks on a fixed parabola whose prop line, 60 px long,
 // is at angle(n) degrees on the listed frames.
-func turnMarks(frames []int, angle func(n float64) float64) []Mark {
-	var m []Mark
+func turnMarks(frames []int, angle func(n float64) float64) []mark.Mark {
+	var m []mark.Mark
 	for _, n := range frames {
 		f := float64(n)
 		x, y := 50+4*f, 300-20*f+f*f
 		a := angle(f) * math.Pi / 180
-		m = append(m, Mark{Frame: n, X: x, Y: y, HasSecond: true, X2: x + 60*math.Cos(a), Y2: y - 60*math.Sin(a)})
+		m = append(m, mark.Mark{Frame: n, X: x, Y: y, HasSecond: true, X2: x + 60*math.Cos(a), Y2: y - 60*math.Sin(a)})
 	}
 	return m
 }
@@ -315,17 +316,17 @@ func TestFit_Errors(t *testing.T) {
 	good := ref6Marks(false)
 	tests := []struct {
 		name  string
-		marks []Mark
+		marks []mark.Mark
 		opt   FitOptions
 		want  string
 	}{
 		{"two marks", good[:2], FitOptions{FPS: 24}, "at least 3"},
 		{"no marks", nil, FitOptions{FPS: 24}, "at least 3"},
-		{"straight", []Mark{{Frame: 0, Y: 10}, {Frame: 1, Y: 20}, {Frame: 2, Y: 30}, {Frame: 3, Y: 40}}, FitOptions{FPS: 24}, "do not curve downward"},
-		{"upside down", []Mark{{Frame: 0, Y: 10}, {Frame: 1, Y: 5}, {Frame: 2, Y: -2}}, FitOptions{FPS: 24}, "do not curve downward"},
-		{"duplicate", append([]Mark{good[3]}, good...), FitOptions{FPS: 24}, "frame 3 is marked twice"},
-		{"negative frame", append([]Mark{{Frame: -1}}, good...), FitOptions{FPS: 24}, "frame"},
-		{"nan", append([]Mark{{Frame: 20, X: math.NaN()}}, good...), FitOptions{FPS: 24}, "x:"},
+		{"straight", []mark.Mark{{Frame: 0, Y: 10}, {Frame: 1, Y: 20}, {Frame: 2, Y: 30}, {Frame: 3, Y: 40}}, FitOptions{FPS: 24}, "do not curve downward"},
+		{"upside down", []mark.Mark{{Frame: 0, Y: 10}, {Frame: 1, Y: 5}, {Frame: 2, Y: -2}}, FitOptions{FPS: 24}, "do not curve downward"},
+		{"duplicate", append([]mark.Mark{good[3]}, good...), FitOptions{FPS: 24}, "frame 3 is marked twice"},
+		{"negative frame", append([]mark.Mark{{Frame: -1}}, good...), FitOptions{FPS: 24}, "frame"},
+		{"nan", append([]mark.Mark{{Frame: 20, X: math.NaN()}}, good...), FitOptions{FPS: 24}, "x:"},
 		{"no fps", good, FitOptions{Gravity: 9.8}, "fps:"},
 		{"negative fps", good, FitOptions{FPS: -24}, "fps:"},
 		{"inf gravity", good, FitOptions{FPS: 24, Gravity: math.Inf(1)}, "gravity:"},

@@ -14,6 +14,7 @@ import (
 	"strings"
 
 	"propflight/app/fsutil"
+	"propflight/internal/mark"
 )
 
 // frameExt reports whether a folder file name is a frame: .png, .jpg or
@@ -184,13 +185,13 @@ func jpegProgressive(head []byte) bool {
 }
 
 // checkSize refuses an empty size, one over maxPix pixels or one with a
-// side over MaxMarkCoord.
+// side over mark.MaxCoord.
 func checkSize(path string, w, h, maxPix int) error {
 	if w <= 0 || h <= 0 {
 		return &Error{File: path, Msg: fmt.Sprintf("declares an empty image (%dx%d pixels)", w, h)}
 	}
-	if float64(max(w, h)) > MaxMarkCoord {
-		return &Error{File: path, Msg: fmt.Sprintf("declares %dx%d pixels; a side may be at most %g pixels", w, h, MaxMarkCoord)}
+	if float64(max(w, h)) > mark.MaxCoord {
+		return &Error{File: path, Msg: fmt.Sprintf("declares %dx%d pixels; a side may be at most %g pixels", w, h, mark.MaxCoord)}
 	}
 	if int64(w)*int64(h) > int64(maxPix) {
 		return &Error{File: path, Msg: fmt.Sprintf("declares %dx%d pixels (%s megapixels); the limit is %s megapixels",

@@ -5,6 +5,8 @@ import (
 	"errors"
 	"slices"
 	"testing"
+
+	"propflight/internal/mark"
 )
 
 // FuzzParseMarks checks that ParseMarks never panics, that every refusal
@@ -40,7 +42,7 @@ func FuzzParseMarks(f *testing.F) {
 			t.Fatalf("written marks do not parse: %v\n%s", err, buf.Bytes())
 		}
 		want := slices.Clone(marks)
-		slices.SortFunc(want, func(a, b Mark) int { return cmpInt(a.Frame, b.Frame) })
+		slices.SortFunc(want, func(a, b mark.Mark) int { return cmpInt(a.Frame, b.Frame) })
 		if !slices.Equal(back, want) {
 			t.Fatalf("round trip changed the marks:\n got %+v\nwant %+v", back, want)
 		}

@@ -10,30 +10,13 @@ import (
 	"slices"
 	"strconv"
 	"strings"
+
+	"propflight/internal/mark"
 )
 
-// Mark is the user's click on one footage frame, in image pixels (origin at
-// the top-left corner, y down): the prop's centre (X, Y) and, with
-// HasSecond, a second point (X2, Y2) on the prop that shows which way it
-// points, such as one end of a rolling pin.
-type Mark struct {
-	Frame     int
-	X, Y      float64
-	HasSecond bool
-	X2, Y2    float64
-}
-
-// Limits of a marks file.
+// Limits of a marks file (a mark's own limits are mark.MaxFrame and
+// mark.MaxCoord).
 const (
-	// MaxMarkFrame is the largest frame number a mark may have: 10 million
-	// frames is over four days at 24 fps, so anything beyond is a typing
-	// slip (and keeps n^2 in the fits far from float64 trouble).
-	MaxMarkFrame = 10_000_000
-	// MaxMarkCoord bounds |x| and |y| of a mark, pixels: Open refuses a
-	// frame with a side over it, so a mark beyond it is outside any
-	// footage (a typing slip). Where the footage is known, marks must be
-	// inside its image (CheckBounds).
-	MaxMarkCoord = 1e6
 	// MaxMarks is the most rows ParseMarks reads.
 	MaxMarks = 1_000_000
 	// MaxMarksFileBytes is the largest marks file ParseMarks reads: 64 MiB,
@@ -73,14 +56,14 @@ var markColumns = [...]string{"frame", "x", "y", "x2", "y2"}
 // comma separated. name is the file name used in errors. A first row whose
 // first field is "frame" is the header and must name those columns; blank
 // lines, lines starting with '#', spaces around fields and a UTF-8 byte
-// order mark are allowed. Frames are whole numbers from 0 to MaxMarkFrame,
-// each marked once; coordinates finite numbers of at most MaxMarkCoord
+// order mark are allowed. Frames are whole numbers from 0 to mark.MaxFrame,
+// each marked once; coordinates finite numbers of at most mark.MaxCoord
 // pixels. A file over MaxMarksFileBytes is refused. The marks are returned
 // in file order.
 //
 // Errors are [*Error] naming the file, the line and the column, such as
 // "marks.csv: line 4: x: not a number".
-func ParseMarks(name string, r io.Reader) ([]Mark, error) {
+func ParseMarks(name string, r io.Reader) ([]mark.Mark, error) {
 	br := bufio.NewReader(&capReader{r: r, n: MaxMarksFileBytes})
 	if b, err := br.Peek(3); err == nil && string(b) == "\uFEFF" {
 		br.Discard(3)
@@ -89,7 +72,7 @@ func ParseMarks(name string, r io.Reader) ([]Mark, error) {
 	cr.FieldsPerRecord = -1
 	cr.Comment = '#'
 	cr.ReuseRecord = true
-	var marks []Mark
+	var marks []mark.Mark
 	seen := map[int]int{} // frame -> line
 	first := true
 	for {
@@ -152,41 +135,41 @@ func checkHeader(rec []string) error {
 }
 
 // parseRow reads one data row; the returned error lacks File and Line.
-func parseRow(rec []string) (Mark, *Error) {
+func parseRow(rec []string) (mark.Mark, *Error) {
 	switch {
 	case len(rec) == 4:
-		return Mark{}, &Error{Field: "y2", Msg: "missing: x2 needs y2 (give frame,x,y or frame,x,y,x2,y2)"}
+		return mark.Mark{}, &Error{Field: "y2", Msg: "missing: x2 needs y2 (give frame,x,y or frame,x,y,x2,y2)"}
 	case len(rec) > 5:
-		return Mark{}, &Error{Msg: fmt.Sprintf("%d fields; a row is frame,x,y or frame,x,y,x2,y2", len(rec))}
+		return mark.Mark{}, &Error{Msg: fmt.Sprintf("%d fields; a row is frame,x,y or frame,x,y,x2,y2", len(rec))}
 	case len(rec) < 3:
-		return Mark{}, &Error{Field: markColumns[len(rec)], Msg: "missing (a row is frame,x,y or frame,x,y,x2,y2)"}
+		return mark.Mark{}, &Error{Field: markColumns[len(rec)], Msg: "missing (a row is frame,x,y or frame,x,y,x2,y2)"}
 	}
-	var m Mark
+	var m mark.Mark
 	f := strings.TrimSpace(rec[0])
 	n, err := strconv.Atoi(f)
 	switch {
 	case err != nil && f == "":
-		return Mark{}, &Error{Field: "frame", Msg: "missing"}
+		return mark.Mark{}, &Error{Field: "frame", Msg: "missing"}
 	case err != nil && errors.Is(err, strconv.ErrRange) && strings.HasPrefix(f, "-"):
-		return Mark{}, &Error{Field: "frame", Msg: "must be 0 or more"}
+		return mark.Mark{}, &Error{Field: "frame", Msg: "must be 0 or more"}
 	case err != nil && errors.Is(err, strconv.ErrRange):
-		return Mark{}, &Error{Field: "frame", Msg: fmt.Sprintf("must be at most %d", MaxMarkFrame)}
+		return mark.Mark{}, &Error{Field: "frame", Msg: fmt.Sprintf("must be at most %d", mark.MaxFrame)}
 	case err != nil:
 		if _, ferr := strconv.ParseFloat(f, 64); ferr == nil {
-			return Mark{}, &Error{Field: "frame", Msg: "not a whole number"}
+			return mark.Mark{}, &Error{Field: "frame", Msg: "not a whole number"}
 		}
-		return Mark{}, &Error{Field: "frame", Msg: "not a number"}
+		return mark.Mark{}, &Error{Field: "frame", Msg: "not a number"}
 	case n < 0:
-		return Mark{}, &Error{Field: "frame", Msg: "must be 0 or more"}
-	case n > MaxMarkFrame:
-		return Mark{}, &Error{Field: "frame", Msg: fmt.Sprintf("must be at most %d", MaxMarkFrame)}
+		return mark.Mark{}, &Error{Field: "frame", Msg: "must be 0 or more"}
+	case n > mark.MaxFrame:
+		return mark.Mark{}, &Error{Field: "frame", Msg: fmt.Sprintf("must be at most %d", mark.MaxFrame)}
 	}
 	m.Frame = n
 	vals := make([]float64, len(rec)-1)
 	for i := 1; i < len(rec); i++ {
 		v, e := parseCoord(markColumns[i], rec[i])
 		if e != nil {
-			return Mark{}, e
+			return mark.Mark{}, e
 		}
 		vals[i-1] = v
 	}
@@ -214,24 +197,24 @@ func parseCoord(col, s string) (float64, *Error) {
 	if math.IsNaN(v) || math.IsInf(v, 0) {
 		return 0, &Error{Field: col, Msg: "must be a finite number"}
 	}
-	if math.Abs(v) > MaxMarkCoord {
-		return 0, &Error{Field: col, Msg: fmt.Sprintf("must be at most %g pixels from the image corner", MaxMarkCoord)}
+	if math.Abs(v) > mark.MaxCoord {
+		return 0, &Error{Field: col, Msg: fmt.Sprintf("must be at most %g pixels from the image corner", mark.MaxCoord)}
 	}
 	return v, nil
 }
 
 // checkMark reports the first problem ParseMarks would find with m.
-func checkMark(m Mark) *Error {
-	if m.Frame < 0 || m.Frame > MaxMarkFrame {
-		return &Error{Field: "frame", Msg: fmt.Sprintf("frame %d must be from 0 to %d", m.Frame, MaxMarkFrame)}
+func checkMark(m mark.Mark) *Error {
+	if m.Frame < 0 || m.Frame > mark.MaxFrame {
+		return &Error{Field: "frame", Msg: fmt.Sprintf("frame %d must be from 0 to %d", m.Frame, mark.MaxFrame)}
 	}
 	vals := []float64{m.X, m.Y, m.X2, m.Y2}
 	if !m.HasSecond {
 		vals = vals[:2]
 	}
 	for i, v := range vals {
-		if math.IsNaN(v) || math.IsInf(v, 0) || math.Abs(v) > MaxMarkCoord {
-			return &Error{Field: markColumns[i+1], Msg: fmt.Sprintf("frame %d: %g is not a finite coordinate of at most %g pixels", m.Frame, v, MaxMarkCoord)}
+		if math.IsNaN(v) || math.IsInf(v, 0) || math.Abs(v) > mark.MaxCoord {
+			return &Error{Field: markColumns[i+1], Msg: fmt.Sprintf("frame %d: %g is not a finite coordinate of at most %g pixels", m.Frame, v, mark.MaxCoord)}
 		}
 	}
 	return nil
@@ -239,9 +222,9 @@ func checkMark(m Mark) *Error {
 
 // sortedMarks returns a copy of marks sorted by frame, or an error for a
 // mark ParseMarks would refuse or a frame marked twice.
-func sortedMarks(marks []Mark) ([]Mark, error) {
+func sortedMarks(marks []mark.Mark) ([]mark.Mark, error) {
 	s := slices.Clone(marks)
-	slices.SortStableFunc(s, func(a, b Mark) int { return cmpInt(a.Frame, b.Frame) })
+	slices.SortStableFunc(s, func(a, b mark.Mark) int { return cmpInt(a.Frame, b.Frame) })
 	for i, m := range s {
 		if e := checkMark(m); e != nil {
 			return nil, e
@@ -259,12 +242,12 @@ func sortedMarks(marks []Mark) ([]Mark, error) {
 // shortest form that round-trips (strconv 'g', -1). Marks that ParseMarks
 // would refuse (a negative frame, a frame marked twice, a non-finite
 // coordinate) are an error and nothing is written.
-func WriteMarks(w io.Writer, marks []Mark) error {
+func WriteMarks(w io.Writer, marks []mark.Mark) error {
 	s, err := sortedMarks(marks)
 	if err != nil {
 		return err
 	}
-	second := slices.ContainsFunc(s, func(m Mark) bool { return m.HasSecond })
+	second := slices.ContainsFunc(s, func(m mark.Mark) bool { return m.HasSecond })
 	bw := bufio.NewWriter(w)
 	if second {
 		bw.WriteString("frame,x,y,x2,y2\n")
@@ -291,7 +274,7 @@ func WriteMarks(w io.Writer, marks []Mark) error {
 // CheckBounds reports marks outside a w x h image, whose pixels span
 // [0, w] x [0, h] (a point on the far edge counts as inside). The error
 // names the first such mark's frame and says how many there are.
-func CheckBounds(marks []Mark, w, h int) error {
+func CheckBounds(marks []mark.Mark, w, h int) error {
 	in := func(x, y float64) bool { return x >= 0 && x <= float64(w) && y >= 0 && y <= float64(h) }
 	var first *Error
 	count := 0

@@ -7,23 +7,25 @@ import (
 	"slices"
 	"strings"
 	"testing"
+
+	"propflight/internal/mark"
 )
 
 func TestParseMarks_Accepts(t *testing.T) {
 	tests := []struct {
 		name, in string
-		want     []Mark
+		want     []mark.Mark
 	}{
 		{"header", "frame,x,y\n0,10,20\n1,11.5,19\n",
-			[]Mark{{Frame: 0, X: 10, Y: 20}, {Frame: 1, X: 11.5, Y: 19}}},
-		{"no header", "3,1,2\n", []Mark{{Frame: 3, X: 1, Y: 2}}},
+			[]mark.Mark{{Frame: 0, X: 10, Y: 20}, {Frame: 1, X: 11.5, Y: 19}}},
+		{"no header", "3,1,2\n", []mark.Mark{{Frame: 3, X: 1, Y: 2}}},
 		{"five columns", "frame,x,y,x2,y2\n0,1,2,3,4\n",
-			[]Mark{{Frame: 0, X: 1, Y: 2, HasSecond: true, X2: 3, Y2: 4}}},
+			[]mark.Mark{{Frame: 0, X: 1, Y: 2, HasSecond: true, X2: 3, Y2: 4}}},
 		{"mixed widths, file order kept", "frame,x,y,x2,y2\n5,1,2\n2,1,2,3,4\n",
-			[]Mark{{Frame: 5, X: 1, Y: 2}, {Frame: 2, X: 1, Y: 2, HasSecond: true, X2: 3, Y2: 4}}},
-		{"blank, space-only and comment lines", "\n# made by hand\nframe,x,y\n\n   \n0,1,2\n\n", []Mark{{Frame: 0, X: 1, Y: 2}}},
-		{"spaces, CRLF, case of header", "Frame, X , Y\r\n 0 , 1e2 , -2.5 \r\n", []Mark{{Frame: 0, X: 100, Y: -2.5}}},
-		{"byte order mark", "\uFEFFframe,x,y\n0,1,2\n", []Mark{{Frame: 0, X: 1, Y: 2}}},
+			[]mark.Mark{{Frame: 5, X: 1, Y: 2}, {Frame: 2, X: 1, Y: 2, HasSecond: true, X2: 3, Y2: 4}}},
+		{"blank, space-only and comment lines", "\n# made by hand\nframe,x,y\n\n   \n0,1,2\n\n", []mark.Mark{{Frame: 0, X: 1, Y: 2}}},
+		{"spaces, CRLF, case of header", "Frame, X , Y\r\n 0 , 1e2 , -2.5 \r\n", []mark.Mark{{Frame: 0, X: 100, Y: -2.5}}},
+		{"byte order mark", "\uFEFFframe,x,y\n0,1,2\n", []mark.Mark{{Frame: 0, X: 1, Y: 2}}},
 		{"empty file", "", nil},
 		{"header only", "frame,x,y\n", nil},
 	}
@@ -84,7 +86,7 @@ func TestParseMarks_Errors(t *testing.T) {
 }
 
 func TestWriteMarks_RoundTrip(t *testing.T) {
-	marks := []Mark{
+	marks := []mark.Mark{
 		{Frame: 10, X: 0.1, Y: 1.0 / 3},
 		{Frame: 2, X: math.Copysign(0, -1), Y: 1e-300, HasSecond: true, X2: math.Pi, Y2: 123456.789125},
 		{Frame: 7, X: 640, Y: 480},
@@ -101,17 +103,17 @@ func TestWriteMarks_RoundTrip(t *testing.T) {
 	if err != nil {
 		t.Fatal(err)
 	}
-	want := []Mark{marks[1], marks[2], marks[0]}
+	want := []mark.Mark{marks[1], marks[2], marks[0]}
 	if !slices.Equal(back, want) || !math.Signbit(back[0].X) {
 		t.Errorf("read back %+v, want %+v", back, want)
 	}
 
 	buf.Reset()
-	if err := WriteMarks(&buf, []Mark{{Frame: 0, X: 1, Y: 2}}); err != nil || buf.String() != "frame,x,y\n0,1,2\n" {
+	if err := WriteMarks(&buf, []mark.Mark{{Frame: 0, X: 1, Y: 2}}); err != nil || buf.String() != "frame,x,y\n0,1,2\n" {
 		t.Errorf("three-column file %q, %v", buf.String(), err)
 	}
 
-	for _, bad := range [][]Mark{
+	for _, bad := range [][]mark.Mark{
 		{{Frame: -1}},
 		{{Frame: 1}, {Frame: 1}},
 		{{Frame: 1, Y: math.Inf(1)}},
@@ -124,13 +126,13 @@ func TestWriteMarks_RoundTrip(t *testing.T) {
 	}
 	// A second point not in use is not checked or written.
 	buf.Reset()
-	if err := WriteMarks(&buf, []Mark{{Frame: 1, X2: math.NaN()}}); err != nil || buf.String() != "frame,x,y\n1,0,0\n" {
+	if err := WriteMarks(&buf, []mark.Mark{{Frame: 1, X2: math.NaN()}}); err != nil || buf.String() != "frame,x,y\n1,0,0\n" {
 		t.Errorf("unused second point: %q, %v", buf.String(), err)
 	}
 }
 
 func TestCheckBounds(t *testing.T) {
-	marks := []Mark{
+	marks := []mark.Mark{
 		{Frame: 0, X: 0, Y: 0},
 		{Frame: 1, X: 640, Y: 480}, // on the far edge: inside
 		{Frame: 2, X: 320, Y: 240, HasSecond: true, X2: 300, Y2: 200},
@@ -139,8 +141,8 @@ func TestCheckBounds(t *testing.T) {
 		t.Errorf("inside marks: %v", err)
 	}
 	out := append(slices.Clone(marks),
-		Mark{Frame: 12, X: 700.5, Y: 20},
-		Mark{Frame: 13, X: 10, Y: 10, HasSecond: true, X2: 10, Y2: -1})
+		mark.Mark{Frame: 12, X: 700.5, Y: 20},
+		mark.Mark{Frame: 13, X: 10, Y: 10, HasSecond: true, X2: 10, Y2: -1})
 	err := CheckBounds(out, 640, 480)
 	if err == nil {
 		t.Fatal("no error for marks outside the image")
@@ -150,7 +152,7 @@ func TestCheckBounds(t *testing.T) {
 			t.Errorf("error %q lacks %q", err, s)
 		}
 	}
-	err = CheckBounds([]Mark{{Frame: 4, X: 1, Y: 1, HasSecond: true, X2: 1, Y2: 481}}, 640, 480)
+	err = CheckBounds([]mark.Mark{{Frame: 4, X: 1, Y: 1, HasSecond: true, X2: 1, Y2: 481}}, 640, 480)
 	if err == nil || !strings.Contains(err.Error(), "frame 4") || !strings.Contains(err.Error(), "second point") {
 		t.Errorf("second point outside: %v", err)
 	}

@@ -50,7 +50,7 @@ func TestParseMarks_FileTooLarge(t *testing.T) {
 }
 
 // TestParseMarks_FarCoordinates: a mark at 1e9 px lies outside any footage
-// Open accepts (sides of at most MaxMarkCoord pixels) and is refused,
+// Open accepts (sides of at most mark.MaxCoord pixels) and is refused,
 // naming the line and the column.
 func TestParseMarks_FarCoordinates(t *testing.T) {
 	for _, c := range []struct{ in, want string }{

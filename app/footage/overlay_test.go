@@ -8,6 +8,7 @@ import (
 
 	"gonum.org/v1/gonum/spatial/r3"
 
+	"propflight/internal/mark"
 	"propflight/physics"
 	"propflight/widgets/wire"
 )
@@ -90,13 +91,13 @@ func TestRenderOverlay_LinesUpWithFootage(t *testing.T) {
 	sf := newSynth(t)
 	frames := sf.take.Frames
 	lens := sf.cam.Lens()
-	var marks []Mark
+	var marks []mark.Mark
 	for _, k := range []int{0, 4, 8, 12, 16, 20} {
 		if k >= len(frames) {
 			t.Fatalf("the take has only %d frames", len(frames))
 		}
 		x, y, _ := lens.Project(frames[k].CM)
-		marks = append(marks, Mark{Frame: k, X: clickRound(x), Y: clickRound(y)})
+		marks = append(marks, mark.Mark{Frame: k, X: clickRound(x), Y: clickRound(y)})
 	}
 	r, err := Fit(marks, FitOptions{FPS: sf.throw.FPS.FPS(), Gravity: sf.throw.Gravity})
 	if err != nil {

@@ -12,6 +12,7 @@ import (
 	"gonum.org/v1/gonum/mat"
 	"gonum.org/v1/gonum/spatial/r3"
 
+	"propflight/internal/mark"
 	"propflight/physics"
 	"propflight/widgets/wire"
 )
@@ -71,13 +72,13 @@ func (sf *synthFootage) scene(k int) wire.Scene {
 }
 
 // marks projects the centre of mass and the lever point of every frame.
-func (sf *synthFootage) marks() []Mark {
+func (sf *synthFootage) marks() []mark.Mark {
 	lens := sf.cam.Lens()
-	var m []Mark
+	var m []mark.Mark
 	for _, fr := range sf.take.Frames {
 		x, y, _ := lens.Project(fr.CM)
 		x2, y2, _ := lens.Project(r3.Add(fr.CM, physics.Rotate(fr.Orient, sf.lever)))
-		m = append(m, Mark{Frame: fr.N, X: x, Y: y, HasSecond: true, X2: x2, Y2: y2})
+		m = append(m, mark.Mark{Frame: fr.N, X: x, Y: y, HasSecond: true, X2: x2, Y2: y2})
 	}
 	return m
 }

@@ -3,6 +3,8 @@ package footage
 import (
 	"fmt"
 	"math"
+
+	"propflight/internal/mark"
 )
 
 // The rule for FitResult.Hint. A turn is "steady" when the line fit of
@@ -50,7 +52,7 @@ const MinTurnMarks = 3
 // orientation mark to the next; mark more frames of a fast spin), and a
 // least-squares line of unwrapped angle over frame gives the turn per
 // frame and the residual.
-func (r *FitResult) fitTurn(s []Mark) error {
+func (r *FitResult) fitTurn(s []mark.Mark) error {
 	var n, ang []float64
 	for _, m := range s {
 		if !m.HasSecond {

@@ -6,6 +6,7 @@ import (
 	"strconv"
 	"strings"
 
+	"propflight/internal/mark"
 	"propflight/physics"
 )
 
@@ -36,32 +37,18 @@ type Footage struct {
 	Overlay *bool // "overlay"
 	// Opacity of that overlay, 0 (invisible) to 1. Default DefaultOpacity.
 	Opacity *float64 // "opacity"
-	// Marks are the user's clicks on the footage, in file order.
-	Marks []FootageMark // "marks"
+	// Marks are the user's clicks on the footage, in file order: the
+	// elements of "footage.marks", {"frame", "x", "y"} and optionally
+	// "x2" and "y2" together (the second point, mark.Mark.HasSecond).
+	Marks []mark.Mark // "marks"
 }
 
-// FootageMark is one element of "footage.marks": the prop's centre on a
-// footage frame, and optionally a second point on the prop that shows which
-// way it points. Coordinates are image pixels of the footage frame: origin
-// at the top-left corner, x to the right, y down (app/footage.Mark). X2 and
-// Y2 are given together or not at all.
-type FootageMark struct {
-	Frame  int      // "frame": footage frame, from 0
-	X, Y   float64  // "x", "y": the centre, px
-	X2, Y2 *float64 // "x2", "y2": the second point, px
-}
-
-// Defaults and limits of the footage object.
+// Defaults of the footage object (its limits are mark.MaxFrame and
+// mark.MaxCoord, the fits' own, so that every mark a project keeps can be
+// fitted).
 const (
 	// DefaultOpacity is the overlay opacity when "opacity" is left out.
 	DefaultOpacity = 0.6
-	// MaxFootageFrame is the largest mark frame and |offset| Build accepts:
-	// app/footage.MaxMarkFrame (10 million frames, over four days at 24
-	// fps), so that every mark a project keeps can be fitted.
-	MaxFootageFrame = 10_000_000
-	// MaxFootageCoord bounds |x|, |y|, |x2| and |y2| of a mark, px:
-	// app/footage.MaxMarkCoord.
-	MaxFootageCoord = 1e6
 )
 
 var (
@@ -150,7 +137,7 @@ func (p *parser) footage(v *value) (*Footage, error) {
 		if mv.kind != kindArray {
 			return nil, p.fail("footage.marks", "must be an array of marks such as {\"frame\": 3, \"x\": 412.5, \"y\": 300}")
 		}
-		f.Marks = make([]FootageMark, 0, len(mv.elems))
+		f.Marks = make([]mark.Mark, 0, len(mv.elems))
 		for i, e := range mv.elems {
 			mk, err := p.mark(e, index("footage.marks", i))
 			if err != nil {
@@ -162,51 +149,44 @@ func (p *parser) footage(v *value) (*Footage, error) {
 	return f, nil
 }
 
-func (p *parser) mark(v *value, path string) (FootageMark, error) {
+func (p *parser) mark(v *value, path string) (mark.Mark, error) {
 	m, err := p.object(v, path, markKeys)
 	if err != nil {
-		return FootageMark{}, err
+		return mark.Mark{}, err
 	}
-	var mk FootageMark
+	var mk mark.Mark
 	for _, k := range []string{"frame", "x", "y"} {
 		if _, ok := m[k]; !ok {
-			return FootageMark{}, p.fail(join(path, k), "missing (a mark has frame, x and y, and optionally x2 and y2)")
+			return mark.Mark{}, p.fail(join(path, k), "missing (a mark has frame, x and y, and optionally x2 and y2)")
 		}
 	}
 	if mk.Frame, err = p.whole(m["frame"], join(path, "frame")); err != nil {
-		return FootageMark{}, err
+		return mark.Mark{}, err
 	}
 	if mk.X, err = p.number(m["x"], join(path, "x")); err != nil {
-		return FootageMark{}, err
+		return mark.Mark{}, err
 	}
 	if mk.Y, err = p.number(m["y"], join(path, "y")); err != nil {
-		return FootageMark{}, err
+		return mark.Mark{}, err
 	}
-	if mk.X2, err = p.numberPtr(m, "x2", path); err != nil {
-		return FootageMark{}, err
+	x2, err := p.numberPtr(m, "x2", path)
+	if err != nil {
+		return mark.Mark{}, err
 	}
-	if mk.Y2, err = p.numberPtr(m, "y2", path); err != nil {
-		return FootageMark{}, err
+	y2, err := p.numberPtr(m, "y2", path)
+	if err != nil {
+		return mark.Mark{}, err
 	}
-	if pr := markFields(&mk, path); pr != nil {
-		return FootageMark{}, pr.in(p.file)
+	switch {
+	case x2 != nil && y2 == nil:
+		return mark.Mark{}, p.fail(join(path, "y2"), "missing: x2 needs y2 (the second point has both)")
+	case y2 != nil && x2 == nil:
+		return mark.Mark{}, p.fail(join(path, "x2"), "missing: y2 needs x2 (the second point has both)")
+	case x2 != nil:
+		mk.HasSecond, mk.X2, mk.Y2 = true, *x2, *y2
 	}
 	return mk, nil
 }
-
-// markFields checks that x2 and y2 come together.
-func markFields(mk *FootageMark, path string) *problem {
-	switch {
-	case mk.X2 != nil && mk.Y2 == nil:
-		return &problem{join(path, "y2"), "missing: x2 needs y2 (the second point has both)"}
-	case mk.Y2 != nil && mk.X2 == nil:
-		return &problem{join(path, "x2"), "missing: y2 needs x2 (the second point has both)"}
-	}
-	return nil
-}
-
-// HasSecond reports whether the mark has a second point.
-func (mk FootageMark) HasSecond() bool { return mk.X2 != nil && mk.Y2 != nil }
 
 // footage writes the "footage" object. Marks are written one to a line.
 func (e *emitter) footage(f *Footage) {
@@ -245,7 +225,7 @@ func (e *emitter) footage(f *Footage) {
 }
 
 // inlineMark writes a mark as a one-line object.
-func (e *emitter) inlineMark(mk *FootageMark, path string) {
+func (e *emitter) inlineMark(mk *mark.Mark, path string) {
 	e.buf.WriteString(`{"frame": `)
 	e.buf.WriteString(strconv.Itoa(mk.Frame))
 	field := func(k string, x float64) {
@@ -254,18 +234,16 @@ func (e *emitter) inlineMark(mk *FootageMark, path string) {
 	}
 	field("x", mk.X)
 	field("y", mk.Y)
-	if mk.X2 != nil {
-		field("x2", *mk.X2)
-	}
-	if mk.Y2 != nil {
-		field("y2", *mk.Y2)
+	if mk.HasSecond {
+		field("x2", mk.X2)
+		field("y2", mk.Y2)
 	}
 	e.buf.WriteByte('}')
 }
 
 // footage checks the footage object's values: a path, a frame rate of at
 // least 1 frame per second, an offset and mark frames in range, an opacity
-// from 0 to 1, mark coordinates of at most MaxFootageCoord pixels and each
+// from 0 to 1, mark coordinates of at most mark.MaxCoord pixels and each
 // frame marked at most once.
 func (b *builder) footage(f *Footage) error {
 	if f == nil {
@@ -283,8 +261,8 @@ func (b *builder) footage(f *Footage) error {
 		}
 	}
 	if f.Offset != nil {
-		if o := *f.Offset; o < -MaxFootageFrame || o > MaxFootageFrame {
-			return b.fail("footage.offset", "must be within +-%d frames", MaxFootageFrame)
+		if o := *f.Offset; o < -mark.MaxFrame || o > mark.MaxFrame {
+			return b.fail("footage.offset", "must be within +-%d frames", mark.MaxFrame)
 		}
 	}
 	if f.Opacity != nil {
@@ -296,25 +274,22 @@ func (b *builder) footage(f *Footage) error {
 	for i := range f.Marks {
 		mk := &f.Marks[i]
 		path := index("footage.marks", i)
-		if pr := markFields(mk, path); pr != nil {
-			return pr.in(b.file)
-		}
 		switch {
 		case mk.Frame < 0:
 			return b.fail(join(path, "frame"), "must be 0 or more (footage frames count from 0)")
-		case mk.Frame > MaxFootageFrame:
-			return b.fail(join(path, "frame"), "must be at most %d", MaxFootageFrame)
+		case mk.Frame > mark.MaxFrame:
+			return b.fail(join(path, "frame"), "must be at most %d", mark.MaxFrame)
 		}
 		coords := []struct {
 			k string
-			x *float64
-		}{{"x", &mk.X}, {"y", &mk.Y}, {"x2", mk.X2}, {"y2", mk.Y2}}
+			x float64
+		}{{"x", mk.X}, {"y", mk.Y}, {"x2", mk.X2}, {"y2", mk.Y2}}
+		if !mk.HasSecond {
+			coords = coords[:2]
+		}
 		for _, c := range coords {
-			if c.x == nil {
-				continue
-			}
-			if x := *c.x; math.IsNaN(x) || math.Abs(x) > MaxFootageCoord {
-				return b.fail(join(path, c.k), "must be a finite number of at most %g pixels from the image corner", MaxFootageCoord)
+			if math.IsNaN(c.x) || math.Abs(c.x) > mark.MaxCoord {
+				return b.fail(join(path, c.k), "must be a finite number of at most %g pixels from the image corner", mark.MaxCoord)
 			}
 		}
 		if j, dup := first[mk.Frame]; dup {

@@ -7,8 +7,8 @@ import (
 	"strings"
 	"testing"
 
-	"propflight/app/footage"
 	"propflight/assets"
+	"propflight/internal/mark"
 	"propflight/physics"
 )
 
@@ -98,12 +98,12 @@ func TestParse_FootageFields(t *testing.T) {
 	x2, y2 := 440.0, 290.0
 	want := &Footage{
 		Path: "clips/pin take 2/", FPS: &FrameRate{Text: "24000/1001"}, Offset: ptr(-2), Overlay: ptr(true), Opacity: ptr(0.45),
-		Marks: []FootageMark{{Frame: 3, X: 412.5, Y: 300.25, X2: &x2, Y2: &y2}, {Frame: 4, X: 430, Y: 280.125}, {Frame: 0, X: 0, Y: 1e-7}},
+		Marks: []mark.Mark{{Frame: 3, X: 412.5, Y: 300.25, HasSecond: true, X2: x2, Y2: y2}, {Frame: 4, X: 430, Y: 280.125}, {Frame: 0, X: 0, Y: 1e-7}},
 	}
 	if !reflect.DeepEqual(f, want) {
 		t.Errorf("footage\n got %+v\nwant %+v", f, want)
 	}
-	if !f.Marks[0].HasSecond() || f.Marks[1].HasSecond() {
+	if !f.Marks[0].HasSecond || f.Marks[1].HasSecond {
 		t.Error("HasSecond")
 	}
 	r, ok, err := doc.FootageRate()
@@ -205,7 +205,7 @@ func TestFootage_RoundTrip(t *testing.T) {
 	}
 	x2, y2 := 12.0, -3.5
 	mem.SetFootagePath("", "/shots/pan")
-	mem.Footage.Marks = []FootageMark{{Frame: 7, X: 0.1, Y: 1e21, X2: &x2, Y2: &y2}}
+	mem.Footage.Marks = []mark.Mark{{Frame: 7, X: 0.1, Y: 1e21, HasSecond: true, X2: x2, Y2: y2}}
 	mem.Footage.Opacity = ptr(0.3)
 	back, data = roundTrip(t, mem)
 	back.File = mem.File
@@ -304,14 +304,6 @@ func TestFootage_Paths(t *testing.T) {
 	}
 }
 
-// TestFootage_LimitsMatchFootagePackage: the project keeps only marks the
-// fitter accepts.
-func TestFootage_LimitsMatchFootagePackage(t *testing.T) {
-	if MaxFootageFrame != footage.MaxMarkFrame || MaxFootageCoord != footage.MaxMarkCoord {
-		t.Errorf("limits %d %g, app/footage %d %g", MaxFootageFrame, MaxFootageCoord, footage.MaxMarkFrame, footage.MaxMarkCoord)
-	}
-}
-
 // TestFootage_BuildErrorIsProjectError: Build's footage errors are *Error
 // like the rest, and a document edited in memory is checked too.
 func TestFootage_BuildErrorIsProjectError(t *testing.T) {
@@ -319,10 +311,10 @@ func TestFootage_BuildErrorIsProjectError(t *testing.T) {
 	if err != nil {
 		t.Fatal(err)
 	}
-	doc.Footage = &Footage{Path: "clip", Marks: []FootageMark{{Frame: 1, X2: ptr(1.0)}}}
+	doc.Footage = &Footage{Path: "clip", Marks: []mark.Mark{{Frame: 1, HasSecond: true, X2: 1e9}}}
 	_, err = doc.Build()
 	var pe *Error
-	if !errors.As(err, &pe) || err.Error() != "pan.json: footage.marks[0].y2: missing: x2 needs y2 (the second point has both)" {
+	if !errors.As(err, &pe) || err.Error() != "pan.json: footage.marks[0].x2: must be a finite number of at most 1e+06 pixels from the image corner" {
 		t.Errorf("got %v", err)
 	}
 }

@@ -348,7 +348,7 @@ func (p *footagePane) sync(d *project.Document) {
 	setValue(p.offset, float64(fo.OffsetOrZero()))
 	p.overlay.SetChecked(fo.OverlayOn())
 	setValue(p.opacity, fo.OpacityOrDefault())
-	p.view.SetMarks(viewMarks(d))
+	p.view.SetMarks(docMarks(d))
 	p.showMarks(d)
 	p.refit()
 	p.follow(p.w.frame)
@@ -362,7 +362,7 @@ func (p *footagePane) showMarks(d *project.Document) {
 	}
 	n, second := len(d.Footage.Marks), 0
 	for _, m := range d.Footage.Marks {
-		if m.HasSecond() {
+		if m.HasSecond {
 			second++
 		}
 	}

@@ -198,8 +198,8 @@ func TestFootage_MarkFitApply(t *testing.T) {
 	}
 	for i, m := range fo.Marks {
 		x, y, x2, y2 := clip.clicks(markedFrames[i])
-		if m.Frame != markedFrames[i] || !m.HasSecond() || math.Abs(m.X-x) > 1e-3 || math.Abs(m.Y-y) > 1e-3 ||
-			math.Abs(*m.X2-x2) > 1e-3 || math.Abs(*m.Y2-y2) > 1e-3 {
+		if m.Frame != markedFrames[i] || !m.HasSecond || math.Abs(m.X-x) > 1e-3 || math.Abs(m.Y-y) > 1e-3 ||
+			math.Abs(m.X2-x2) > 1e-3 || math.Abs(m.Y2-y2) > 1e-3 {
 			t.Errorf("mark %d = %+v, want frame %d at (%g, %g) to (%g, %g)", i, m, markedFrames[i], x, y, x2, y2)
 		}
 	}
@@ -276,7 +276,7 @@ func TestFootage_UndoMark(t *testing.T) {
 	}
 	w.undo()
 	fo := w.ed.Doc().Footage
-	if len(fo.Marks) != 1 || fo.Marks[0].HasSecond() {
+	if len(fo.Marks) != 1 || fo.Marks[0].HasSecond {
 		t.Fatalf("after one undo: %+v, want the centre only", fo.Marks)
 	}
 	if vm := w.footage.view.Marks(); len(vm) != 1 || vm[0].HasSecond {
@@ -291,7 +291,7 @@ func TestFootage_UndoMark(t *testing.T) {
 	}
 	w.redo()
 	w.redo()
-	if m := w.ed.Doc().Footage.Marks; len(m) != 1 || !m[0].HasSecond() {
+	if m := w.ed.Doc().Footage.Marks; len(m) != 1 || !m[0].HasSecond {
 		t.Errorf("after redo: %+v", m)
 	}
 	// A second point on a frame without a centre is refused, not stored.

@@ -8,13 +8,13 @@ import (
 
 	"propflight/app/footage"
 	"propflight/app/project"
+	"propflight/internal/mark"
 	"propflight/physics"
-	"propflight/widgets"
 )
 
 // This file holds the edits the footage controls make to a
-// project.Document, and the conversions between the document's marks and
-// those of app/footage and the footage view. Coordinates are the
+// project.Document, and hands its marks (one type, mark.Mark, for the
+// document, app/footage and the footage view) on. Coordinates are the
 // footage's image pixels (origin top left, y down); frames are footage
 // frames.
 
@@ -49,15 +49,15 @@ func setMark(d *project.Document, f int, x, y float64, second bool) error {
 	i := markIndex(d, f)
 	switch {
 	case i >= 0 && second:
-		fo.Marks[i].X2, fo.Marks[i].Y2 = ptrTo(x), ptrTo(y)
+		fo.Marks[i].HasSecond, fo.Marks[i].X2, fo.Marks[i].Y2 = true, x, y
 	case i >= 0:
 		fo.Marks[i].X, fo.Marks[i].Y = x, y
 	case second:
 		return errNoCentre
 	default:
-		m := project.FootageMark{Frame: f, X: x, Y: y}
-		at, _ := slices.BinarySearchFunc(fo.Marks, f, func(m project.FootageMark, f int) int { return m.Frame - f })
-		if !slices.IsSortedFunc(fo.Marks, func(a, b project.FootageMark) int { return a.Frame - b.Frame }) {
+		m := mark.Mark{Frame: f, X: x, Y: y}
+		at, _ := slices.BinarySearchFunc(fo.Marks, f, func(m mark.Mark, f int) int { return m.Frame - f })
+		if !slices.IsSortedFunc(fo.Marks, func(a, b mark.Mark) int { return a.Frame - b.Frame }) {
 			at = len(fo.Marks)
 		}
 		fo.Marks = slices.Insert(fo.Marks, at, m)
@@ -87,7 +87,7 @@ func moveSecond(d *project.Document, i int, x, y float64) error {
 	if err := checkMarkIndex(d, i); err != nil {
 		return err
 	}
-	d.Footage.Marks[i].X2, d.Footage.Marks[i].Y2 = ptrTo(x), ptrTo(y)
+	d.Footage.Marks[i].HasSecond, d.Footage.Marks[i].X2, d.Footage.Marks[i].Y2 = true, x, y
 	return nil
 }
 
@@ -100,35 +100,14 @@ func deleteMark(d *project.Document, i int) error {
 	return nil
 }
 
-// viewMarks returns the document's marks for the footage view, in the
-// document's order (the view's indexes are the document's).
-func viewMarks(d *project.Document) []widgets.FootageMark {
+// docMarks returns a copy of the document's marks, in the document's
+// order (the footage view's indexes are the document's), for the footage
+// view and footage.Fit.
+func docMarks(d *project.Document) []mark.Mark {
 	if d.Footage == nil {
 		return nil
 	}
-	out := make([]widgets.FootageMark, len(d.Footage.Marks))
-	for i, m := range d.Footage.Marks {
-		out[i] = widgets.FootageMark{Frame: m.Frame, X: m.X, Y: m.Y}
-		if m.HasSecond() {
-			out[i].HasSecond, out[i].X2, out[i].Y2 = true, *m.X2, *m.Y2
-		}
-	}
-	return out
-}
-
-// fitMarks returns the document's marks for footage.Fit.
-func fitMarks(d *project.Document) []footage.Mark {
-	if d.Footage == nil {
-		return nil
-	}
-	out := make([]footage.Mark, len(d.Footage.Marks))
-	for i, m := range d.Footage.Marks {
-		out[i] = footage.Mark{Frame: m.Frame, X: m.X, Y: m.Y}
-		if m.HasSecond() {
-			out[i].HasSecond, out[i].X2, out[i].Y2 = true, *m.X2, *m.Y2
-		}
-	}
-	return out
+	return slices.Clone(d.Footage.Marks)
 }
 
 // applyFitToThrow sets the throw from fitted settings: the release

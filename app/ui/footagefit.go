@@ -62,7 +62,7 @@ func (p *footagePane) renderOverlay() {
 // draw it again (renderOverlay).
 func (p *footagePane) refit() {
 	d := p.w.ed.Doc()
-	marks := fitMarks(d)
+	marks := docMarks(d)
 	p.fit, p.fitErr = nil, nil
 	var outside error
 	if p.seq != nil {
