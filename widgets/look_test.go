@@ -33,7 +33,7 @@ func TestLook(t *testing.T) {
 	pv.SetFrame(sc.Take.ApexFrame)
 	tl := NewTimeline(nil)
 	tl.SetRange(n, physics.Rate{Num: 24, Den: 1})
-	tl.SetMarks([]Mark{{0, MarkRelease, "release"}, {sc.Take.ApexFrame, MarkApex, "apex"}, {30, MarkFlip, "flip"}, {33, MarkKey, "key"}, {n - 1, MarkLanding, "land"}})
+	tl.SetFlags([]Flag{{0, FlagRelease, "release"}, {sc.Take.ApexFrame, FlagApex, "apex"}, {30, FlagFlip, "flip"}, {33, FlagKey, "key"}, {n - 1, FlagLanding, "land"}})
 	tl.SetFrame(sc.Take.ApexFrame)
 	f1 := NewNumberField("Radius", Length, 0.001, 1, nil)
 	f1.SetValue(0.13)
@@ -61,7 +61,7 @@ func TestLook(t *testing.T) {
 
 	tl3 := NewTimeline(nil)
 	tl3.SetRange(n, physics.Rate{Num: 24, Den: 1})
-	tl3.SetMarks([]Mark{{0, MarkRelease, "release"}, {sc.Take.ApexFrame, MarkApex, "apex"}, {30, MarkFlip, "flip"}, {33, MarkKey, "key"}, {n - 1, MarkLanding, "land"}})
+	tl3.SetFlags([]Flag{{0, FlagRelease, "release"}, {sc.Take.ApexFrame, FlagApex, "apex"}, {30, FlagFlip, "flip"}, {33, FlagKey, "key"}, {n - 1, FlagLanding, "land"}})
 	tl3.SetFrame(5)
 	w3 := test.NewTempWindow(t, tl3)
 	w3.Canvas().(test.WindowlessCanvas).SetScale(2)

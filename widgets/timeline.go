@@ -20,47 +20,48 @@ var (
 	_ fyne.Focusable = (*Timeline)(nil)
 )
 
-// MarkKind says what a timeline mark stands for; each kind has its own
+// FlagKind says what a timeline flag stands for; each kind has its own
 // colour.
-type MarkKind int
+type FlagKind int
 
-// The mark kinds.
+// The flag kinds.
 const (
-	MarkRelease MarkKind = iota // frame 0, the prop leaves the hand
-	MarkApex                    // the top of the centre-of-mass arc
-	MarkLanding                 // the last frame before ground contact
-	MarkFlip                    // a middle-axis flip of a tumbling prop
-	MarkKey                     // a key the user set
+	FlagRelease FlagKind = iota // frame 0, the prop leaves the hand
+	FlagApex                    // the top of the centre-of-mass arc
+	FlagLanding                 // the last frame before ground contact
+	FlagFlip                    // a middle-axis flip of a tumbling prop
+	FlagKey                     // a key the user set
 )
 
-// markColors are Propflight's own mark colours, by MarkKind.
-var markColors = [...]color.NRGBA{
-	MarkRelease: {72, 196, 132, 255},
-	MarkApex:    {238, 184, 52, 255},
-	MarkLanding: {232, 96, 72, 255},
-	MarkFlip:    {196, 104, 228, 255},
-	MarkKey:     {84, 156, 240, 255},
+// flagColors are Propflight's own flag colours, by FlagKind.
+var flagColors = [...]color.NRGBA{
+	FlagRelease: {72, 196, 132, 255},
+	FlagApex:    {238, 184, 52, 255},
+	FlagLanding: {232, 96, 72, 255},
+	FlagFlip:    {196, 104, 228, 255},
+	FlagKey:     {84, 156, 240, 255},
 }
 
-// Color returns the colour the timeline draws marks of kind k in.
-func (k MarkKind) Color() color.NRGBA {
-	if k < 0 || int(k) >= len(markColors) {
+// Color returns the colour the timeline draws flags of kind k in.
+func (k FlagKind) Color() color.NRGBA {
+	if k < 0 || int(k) >= len(flagColors) {
 		return color.NRGBA{160, 160, 160, 255}
 	}
-	return markColors[k]
+	return flagColors[k]
 }
 
-// Mark is a flag on the timeline at a frame, with a short label ("apex",
-// "flip 1"). Marks outside the take are not drawn.
-type Mark struct {
+// Flag stands on the timeline at a frame where something happens in the
+// take (release, apex, landing, a flip, a key), with a short label ("apex",
+// "flip 1"). Flags outside the take are not drawn.
+type Flag struct {
 	Frame int
-	Kind  MarkKind
+	Kind  FlagKind
 	Label string
 }
 
 // Timeline is a strip of the take's frames: a tick per frame (longer every
 // six frames, five at 25 and 50 fps, and longest at every timecode
-// second; thinned when they crowd), frame numbers, the marks as coloured
+// second; thinned when they crowd), frame numbers, the flags as coloured
 // flags and the current frame as a cursor with its number and timecode
 // (physics.Rate.Timecode). Tapping or dragging moves the cursor to the
 // frame under the pointer and calls onChange; Left/Right step a frame and
@@ -76,7 +77,7 @@ type Timeline struct {
 	onChange func(frame int)
 	frames   int
 	fps      physics.Rate
-	marks    []Mark
+	flags    []Flag
 	frame    int
 	focused  bool
 	seconds  []int // frames on which a timecode second begins, ascending
@@ -109,10 +110,10 @@ func (t *Timeline) SetRange(frames int, fps physics.Rate) {
 // Frames returns the number of frames.
 func (t *Timeline) Frames() int { return t.frames }
 
-// SetMarks replaces the marks. The slice is copied.
-func (t *Timeline) SetMarks(marks []Mark) {
-	t.marks = slices.Clone(marks)
-	slices.SortStableFunc(t.marks, func(a, b Mark) int { return a.Frame - b.Frame })
+// SetFlags replaces the flags. The slice is copied.
+func (t *Timeline) SetFlags(flags []Flag) {
+	t.flags = slices.Clone(flags)
+	slices.SortStableFunc(t.flags, func(a, b Flag) int { return a.Frame - b.Frame })
 	t.Refresh()
 }
 
@@ -230,9 +231,9 @@ const (
 	tickSix        = 7.0  // every six (or five) frames
 	tickSecond     = 11.0 // every timecode second
 	minTickGap     = 3.0  // ticks closer than this are thinned
-	flagTop        = 2.0  // top of a mark's pole
+	flagTop        = 2.0  // top of a flag's pole
 	flagW, flagH   = 7.0, 6.0
-	labelSize      = 10.0 // text size of frame numbers, mark labels and the readout
+	labelSize      = 10.0 // text size of frame numbers, flag labels and the readout
 )
 
 // strip maps frames to x along a timeline of width w.

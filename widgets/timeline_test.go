@@ -137,8 +137,8 @@ func TestSecondStarts_DropFrame(t *testing.T) {
 func TestTimeline_Golden(t *testing.T) {
 	tl, w, _ := timelineWindow(t, 32)
 	w.Resize(fyne.NewSize(420, timelineHeight))
-	tl.SetMarks([]Mark{{0, MarkRelease, "release"}, {13, MarkApex, "apex"}, {21, MarkKey, "key"},
-		{30, MarkFlip, "flip"}, {31, MarkLanding, "land"}, {40, MarkKey, "outside"}})
+	tl.SetFlags([]Flag{{0, FlagRelease, "release"}, {13, FlagApex, "apex"}, {21, FlagKey, "key"},
+		{30, FlagFlip, "flip"}, {31, FlagLanding, "land"}, {40, FlagKey, "outside"}})
 	tl.SetFrame(13)
 	test.AssertImageMatches(t, "timeline/apex.png", w.Canvas().Capture())
 

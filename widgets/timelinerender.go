@@ -26,7 +26,7 @@ type timelineRenderer struct {
 	flags          []*canvas.Rectangle
 	flagText       []*canvas.Text
 	nTicks, nLabel int
-	nMarks, nFlagT int
+	nFlags, nFlagT int
 	objects        []fyne.CanvasObject
 }
 
@@ -64,13 +64,13 @@ func (r *timelineRenderer) label() *canvas.Text {
 	return l
 }
 
-func (r *timelineRenderer) mark() (*canvas.Line, *canvas.Rectangle) {
-	if r.nMarks == len(r.poles) {
+func (r *timelineRenderer) flag() (*canvas.Line, *canvas.Rectangle) {
+	if r.nFlags == len(r.poles) {
 		r.poles = append(r.poles, canvas.NewLine(color.Transparent))
 		r.flags = append(r.flags, canvas.NewRectangle(color.Transparent))
 	}
-	r.nMarks++
-	return r.poles[r.nMarks-1], r.flags[r.nMarks-1]
+	r.nFlags++
+	return r.poles[r.nFlags-1], r.flags[r.nFlags-1]
 }
 
 func (r *timelineRenderer) flagLabel() *canvas.Text {
@@ -92,7 +92,7 @@ func (r *timelineRenderer) rebuild(size fyne.Size) {
 	fg := th.Color(theme.ColorNameForeground, v)
 	dim := th.Color(theme.ColorNamePlaceHolder, v)
 	primary := th.Color(theme.ColorNamePrimary, v)
-	r.nTicks, r.nLabel, r.nMarks, r.nFlagT = 0, 0, 0, 0
+	r.nTicks, r.nLabel, r.nFlags, r.nFlagT = 0, 0, 0, 0
 	w := size.Width
 
 	r.bg.FillColor = th.Color(theme.ColorNameInputBackground, v)
@@ -125,7 +125,7 @@ func (r *timelineRenderer) rebuild(size fyne.Size) {
 	r.placeTicks(s, fg, dim)
 	readX0, readX1 := r.placeReadout(s, size, primary, th.Color(theme.ColorNameForegroundOnPrimary, v))
 	r.placeLabels(s, dim, readX0, readX1)
-	r.placeMarks(s)
+	r.placeFlags(s)
 
 	r.cursor.StrokeColor = primary
 	r.cursor.StrokeWidth = 2
@@ -139,7 +139,7 @@ func (r *timelineRenderer) rebuild(size fyne.Size) {
 	for _, o := range r.labels[:r.nLabel] {
 		r.objects = append(r.objects, o)
 	}
-	for i := range r.nMarks {
+	for i := range r.nFlags {
 		r.objects = append(r.objects, r.poles[i], r.flags[i])
 	}
 	for _, o := range r.flagText[:r.nFlagT] {
@@ -269,14 +269,14 @@ func (r *timelineRenderer) placeReadout(s strip, size fyne.Size, fill, ink color
 	return x, x + bw
 }
 
-// placeMarks draws each mark inside the take as a pole with a flag, and its
+// placeFlags draws each flag inside the take as a pole with a pennant, and its
 // label to the right of the flag, or to the left of the pole when the
-// right has no room before the next mark or the strip's end; a label that
+// right has no room before the next flag or the strip's end; a label that
 // fits neither side is left out (the flag stays).
-func (r *timelineRenderer) placeMarks(s strip) {
+func (r *timelineRenderer) placeFlags(s strip) {
 	t := r.t
-	var in []Mark
-	for _, m := range t.marks {
+	var in []Flag
+	for _, m := range t.flags {
 		if m.Frame >= 0 && m.Frame < t.frames {
 			in = append(in, m)
 		}
@@ -284,7 +284,7 @@ func (r *timelineRenderer) placeMarks(s strip) {
 	lastEnd := float32(math.Inf(-1)) // right edge of the last label or flag drawn
 	for i, m := range in {
 		c := m.Kind.Color()
-		pole, flag := r.mark()
+		pole, flag := r.flag()
 		x := s.x(m.Frame)
 		pole.StrokeColor = c
 		pole.StrokeWidth = 1

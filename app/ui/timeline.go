@@ -15,7 +15,7 @@ import (
 	"propflight/widgets"
 )
 
-// timelinePane is under the preview: the timeline with its marks, the
+// timelinePane is under the preview: the timeline with its flags, the
 // transport buttons, the loop toggle and the frame readout.
 type timelinePane struct {
 	w        *Window
@@ -25,7 +25,7 @@ type timelinePane struct {
 	loop     *widget.Check
 	frame    *widget.Label
 	timecode *widget.Label
-	marks    []widgets.Mark
+	flags    []widgets.Flag
 }
 
 func newTimelinePane(w *Window) *timelinePane {
@@ -53,28 +53,28 @@ func newTimelinePane(w *Window) *timelinePane {
 	return t
 }
 
-// setTake follows a new take: its frames, rate and marks.
+// setTake follows a new take: its frames, rate and flags.
 func (t *timelinePane) setTake(res editor.Result) {
 	tk := res.Take
 	rate := res.Scene.Throw.FPS
 	t.timeline.SetRange(len(tk.Frames), rate)
-	t.marks = takeMarks(res)
-	t.timeline.SetMarks(t.marks)
+	t.flags = takeFlags(res)
+	t.timeline.SetFlags(t.flags)
 	t.w.view.refreshScene()
 }
 
-// takeMarks returns the timeline marks of a result: release, apex,
+// takeFlags returns the timeline flags of a result: release, apex,
 // landing and each flip of a tumble.
-func takeMarks(res editor.Result) []widgets.Mark {
+func takeFlags(res editor.Result) []widgets.Flag {
 	tk := res.Take
-	marks := []widgets.Mark{{Frame: 0, Kind: widgets.MarkRelease, Label: "release"}}
+	flags := []widgets.Flag{{Frame: 0, Kind: widgets.FlagRelease, Label: "release"}}
 	if tk.ApexFrame > 0 && tk.ApexFrame < tk.LandingFrame {
-		marks = append(marks, widgets.Mark{Frame: tk.ApexFrame, Kind: widgets.MarkApex, Label: "apex"})
+		flags = append(flags, widgets.Flag{Frame: tk.ApexFrame, Kind: widgets.FlagApex, Label: "apex"})
 	}
 	for k, n := range flipFrames(res.Verdict, tk, res.Scene.Throw.FPS) {
-		marks = append(marks, widgets.Mark{Frame: n, Kind: widgets.MarkFlip, Label: fmt.Sprintf("flip %d", k+1)})
+		flags = append(flags, widgets.Flag{Frame: n, Kind: widgets.FlagFlip, Label: fmt.Sprintf("flip %d", k+1)})
 	}
-	return append(marks, widgets.Mark{Frame: tk.LandingFrame, Kind: widgets.MarkLanding, Label: "landing"})
+	return append(flags, widgets.Flag{Frame: tk.LandingFrame, Kind: widgets.FlagLanding, Label: "landing"})
 }
 
 // showFrame puts frame n on the timeline and the readout.
