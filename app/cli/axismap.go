@@ -88,7 +88,7 @@ func runMap(out io.Writer, c *Command) error {
 	if dest := c.Text(outputFlag.Name); dest != "" {
 		spin := sc.Throw.SpinAxis(mp)
 		m := physics.NewAxisMapper(mp, sc.Thresholds)
-		img := axisview.Render(m, mapPNGWidth, mapPNGHeight, axisview.Options{Palette: axisview.PrintPalette(), Scale: mapPNGScale, Mark: &spin})
+		img := axisview.Render(m, mapPNGWidth, mapPNGHeight, axisview.Options{Palette: axisview.PrintPalette(), Scale: mapPNGScale, Spin: &spin})
 		// With -o - the PNG is the output; report nothing else.
 		sink := out
 		if dest != "-" && c.Switch("--json") {

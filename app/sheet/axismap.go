@@ -34,7 +34,7 @@ func (s *sheet) axisMap(x, y, w float64) float64 {
 	mp := &s.sc.Mass
 	m := physics.NewAxisMapper(mp, s.thr)
 	spin := s.sc.Throw.SpinAxis(mp)
-	img := axisview.Render(m, axisMapPixW, axisMapPixH, axisview.Options{Palette: axisview.PrintPalette(), Scale: axisMapScale, Mark: &spin})
+	img := axisview.Render(m, axisMapPixW, axisMapPixH, axisview.Options{Palette: axisview.PrintPalette(), Scale: axisMapScale, Spin: &spin})
 	var buf bytes.Buffer
 	if err := png.Encode(&buf, img); err != nil {
 		p.SetError(err)

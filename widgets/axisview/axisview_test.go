@@ -109,10 +109,10 @@ func TestRender_ColoursByVerdict(t *testing.T) {
 		}
 	}
 	spin := mp.Axes[2]
-	marked := Render(m, 640, 360, Options{Palette: pal, Scale: 1, Mark: &spin})
+	marked := Render(m, 640, 360, Options{Palette: pal, Scale: 1, Spin: &spin})
 	p := l.Point(DownGreatest, r3.Vec{Z: 1})
 	ringPx := marked.RGBAAt(int(p[0]+7), int(p[1]))
-	if ringPx.R != pal.Mark.R || ringPx.G != pal.Mark.G {
+	if ringPx.R != pal.Ring.R || ringPx.G != pal.Ring.G {
 		t.Errorf("no mark ring at the greatest axis: %v", ringPx)
 	}
 	if out := os.Getenv("AXISVIEW_PNG"); out != "" {

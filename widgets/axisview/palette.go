@@ -15,7 +15,7 @@ type Palette struct {
 	Halo        color.NRGBA // behind text drawn over the discs
 	Rim         color.NRGBA // disc outline and class boundaries
 	Separatrix  color.NRGBA
-	Mark        color.NRGBA // the current spin direction
+	Ring        color.NRGBA // the ring round the current spin direction
 	Greatest    [2]color.NRGBA
 	Least       [2]color.NRGBA
 	Tumble      [2]color.NRGBA
@@ -31,7 +31,7 @@ func ScreenPalette() Palette {
 		Halo:        color.NRGBA{24, 29, 37, 255},
 		Rim:         color.NRGBA{12, 14, 18, 255},
 		Separatrix:  color.NRGBA{255, 255, 255, 255},
-		Mark:        color.NRGBA{255, 255, 255, 255},
+		Ring:        color.NRGBA{255, 255, 255, 255},
 		Greatest:    [2]color.NRGBA{{188, 222, 250, 255}, {24, 74, 150, 255}},
 		Least:       [2]color.NRGBA{{252, 228, 168, 255}, {150, 96, 10, 255}},
 		Tumble:      [2]color.NRGBA{{248, 190, 206, 255}, {150, 28, 70, 255}},
@@ -47,7 +47,7 @@ func PrintPalette() Palette {
 	p.Text = color.NRGBA{28, 30, 36, 255}
 	p.Halo = color.NRGBA{255, 255, 255, 255}
 	p.Rim = color.NRGBA{60, 64, 72, 255}
-	p.Mark = color.NRGBA{0, 0, 0, 255}
+	p.Ring = color.NRGBA{0, 0, 0, 255}
 	return p
 }
 

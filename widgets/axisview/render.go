@@ -15,7 +15,7 @@ import (
 type Options struct {
 	Palette Palette
 	Scale   int     // text and line scale, at least 1 (the canvas scale on screen)
-	Mark    *r3.Vec // the throw's spin direction (prop frame) to mark in both views; nil for none
+	Spin    *r3.Vec // the throw's spin direction (prop frame), ringed in both views; nil for none
 }
 
 // PolhodeStepDeg is the excursion between two drawn polhode curves.
@@ -63,10 +63,10 @@ func Render(m *physics.AxisMapper, w, h int, opt Options) *image.RGBA {
 		drawText(img, t, int(c[0])-textWidth(t, l.Scale)/2, l.TitleY, pal.Text, color.NRGBA{}, l.Scale)
 	}
 	drawLegend(img, l, m, &pal)
-	if opt.Mark != nil && r3.Norm(*opt.Mark) > 0 {
-		d := ToPrincipal(m.Axes(), *opt.Mark)
+	if opt.Spin != nil && r3.Norm(*opt.Spin) > 0 {
+		d := ToPrincipal(m.Axes(), *opt.Spin)
 		for _, v := range []View{DownGreatest, DownLeast} {
-			DrawMark(img, l.Point(v, d), float64(l.Scale), pal.Mark, pal.Rim)
+			DrawRing(img, l.Point(v, d), float64(l.Scale), pal.Ring, pal.Rim)
 		}
 	}
 	return img
@@ -308,9 +308,9 @@ func drawLegend(img *image.RGBA, l Layout, m *physics.AxisMapper, pal *Palette) 
 	}
 }
 
-// DrawMark draws the ring that marks a direction at p (pixels), of
+// DrawRing draws the ring round a direction at p (pixels), of
 // colour c over an outline o, sized for scale s.
-func DrawMark(img *image.RGBA, p [2]float64, s float64, c, o color.NRGBA) {
+func DrawRing(img *image.RGBA, p [2]float64, s float64, c, o color.NRGBA) {
 	ring(img, p, 7*s, 2.2*s, o)
 	ring(img, p, 7*s, 1.2*s, c)
 	disc(img, p, 1.5*s, c)
