@@ -9,7 +9,7 @@ import (
 	"propflight/widgets/wire"
 )
 
-// Chart marks, mm on the page.
+// Chart ticks and labels, mm on the page.
 const (
 	tickHalf      = 1.0 // half length of a frame tick
 	tickHalfKey   = 2.2 // at a key
@@ -203,22 +203,22 @@ func (s *sheet) chart(x, y, w, h float64) {
 	// Apex and landing.
 	if tk.ApexTime > 0 {
 		ax, ay := toPage(apex)
-		pen(p, inkMark)
+		pen(p, inkAccent)
 		p.SetLineWidth(0.3)
 		p.Circle(ax, ay, 0.9, "D")
 		s.font("B", chartFont+0.6)
-		ink(p, inkMark)
+		ink(p, inkAccent)
 		txt := "apex · frame " + s.frameNo(tk.ApexFrame)
 		lx := math.Min(math.Max(ax, px0+p.GetStringWidth(txt)/2+1), px0+pw-p.GetStringWidth(txt)/2-1)
 		ly := math.Max(ay-tickHalfKey-6.2, py0+2)
-		rule(p, ax, ay-1.2, ax, ly+1.3, 0.15, inkMark)
+		rule(p, ax, ay-1.2, ax, ly+1.3, 0.15, inkAccent)
 		centred(p, lx, ly, txt)
 	}
 	lx, ly := toPage(contact)
-	fill(p, inkMark)
+	fill(p, inkAccent)
 	p.Circle(lx, ly, 0.8, "F")
 	s.font("B", chartFont+0.6)
-	ink(p, inkMark)
+	ink(p, inkAccent)
 	txt := "contact " + fixed(tk.FlightTime, 3) + " s · landing frame " + s.frameNo(tk.LandingFrame)
 	tw := p.GetStringWidth(txt)
 	tx := lx + 2.5

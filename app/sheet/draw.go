@@ -19,7 +19,7 @@ var (
 	inkFaint     = rgb{222, 226, 232}
 	inkArc       = rgb{18, 112, 138}
 	inkGround    = rgb{120, 110, 96}
-	inkMark      = rgb{176, 72, 24}
+	inkAccent    = rgb{176, 72, 24}
 	fillPanel    = rgb{243, 245, 248}
 	fillHead     = rgb{229, 233, 239}
 	fillKey      = rgb{250, 232, 196}

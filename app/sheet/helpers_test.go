@@ -143,7 +143,7 @@ type tableRow struct {
 	timecode               string
 	x, y, z, spacing, turn string
 	total                  string
-	marks                  string
+	notes                  string // the column under the head "marks"
 }
 
 var rowPattern = regexp.MustCompile(`^\s*(\d+)\s+(\d{2}:\d{2}:\d{2}[:;]\d{2})\s+(\S+)\s+(\S+)\s+(\S+)\s+(\S+)\s+(\S+)\s+(\S+)(?:\s+(.*?))?\s*$`)
@@ -160,7 +160,7 @@ func tableRows(t *testing.T, path string, pages int) []tableRow {
 			}
 			f, _ := strconv.Atoi(m[1])
 			rows = append(rows, tableRow{page: pg, frame: f, timecode: m[2], x: m[3], y: m[4], z: m[5],
-				spacing: m[6], turn: m[7], total: m[8], marks: m[9]})
+				spacing: m[6], turn: m[7], total: m[8], notes: m[9]})
 		}
 	}
 	return rows

@@ -163,7 +163,7 @@ func (s *sheet) errorHistogram(x, y, w, h float64, sp *physics.Spread, tol float
 		box(p, gx+float64(i)*bw+0.15, gy+gh-bh, bw-0.3, bh, inkArc)
 	}
 	tx := gx + gw*math.Min(deg(tol), 180)/180
-	rule(p, tx, gy, tx, gy+gh, 0.35, inkMark)
+	rule(p, tx, gy, tx, gy+gh, 0.35, inkAccent)
 	s.font("", sizeSmall-1)
 	ink(p, inkSoft)
 	for _, d := range []float64{0, 45, 90, 135, 180} {

@@ -127,8 +127,8 @@ func (s *sheet) poseCell(x, y, w, h float64, f int, radius float64, view PoseVie
 	ink(p, inkSoft)
 	p.SetXY(x+0.5, y+3.7)
 	words := "in-between"
-	if len(s.tm.marks[f]) > 0 {
-		words = joinMarks(s.tm.marks[f])
+	if len(s.tm.notes[f]) > 0 {
+		words = joinNotes(s.tm.notes[f])
 	} else if role == Breakdown {
 		words = "breakdown"
 	}
@@ -218,8 +218,8 @@ func drawSegments(p *fpdf.Fpdf, d wire.Drawing, pal *wire.Palette, x, y, mmX, mm
 	}
 }
 
-// joinMarks joins marks with " · ".
-func joinMarks(m []string) string {
+// joinNotes joins a frame's notes with " · ".
+func joinNotes(m []string) string {
 	out := ""
 	for i, s := range m {
 		if i > 0 {

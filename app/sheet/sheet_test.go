@@ -138,11 +138,11 @@ func checkRows(t *testing.T, in Input, rows []tableRow, step int) {
 	}
 }
 
-// marksOf returns the marks column of every row by frame.
-func marksOf(rows []tableRow) map[int]string {
+// notesOf returns the notes column (head "marks") of every row by frame.
+func notesOf(rows []tableRow) map[int]string {
 	m := map[int]string{}
 	for _, r := range rows {
-		m[r.frame] = r.marks
+		m[r.frame] = r.notes
 	}
 	return m
 }
@@ -155,7 +155,7 @@ func TestWrite_TableMatchesCSV_OnOnes(t *testing.T) {
 
 	// Marks: the keys, the breakdowns between them, each quarter turn of
 	// the CSV's summed turn and each flip of the tumble.
-	marks := marksOf(rows)
+	marks := notesOf(rows)
 	tk := in.Take
 	last := len(tk.Frames) - 1
 	want := map[int][]string{0: {"key: release"}, tk.ApexFrame: {"key: apex"}, last: {"key: landing"}}
@@ -246,7 +246,7 @@ func TestWrite_Twos_HalvesTheRows(t *testing.T) {
 	// A key on an odd frame is carried to the row before it.
 	last := n - 1
 	if last%2 == 1 {
-		if m := marksOf(rows)[last-1]; !strings.Contains(m, "key: landing (at "+strconv.Itoa(last)+")") {
+		if m := notesOf(rows)[last-1]; !strings.Contains(m, "key: landing (at "+strconv.Itoa(last)+")") {
 			t.Errorf("row %d marks %q: want the landing at %d carried", last-1, m, last)
 		}
 	}

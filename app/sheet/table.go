@@ -10,7 +10,7 @@ import (
 const (
 	rowH       = 4.2 // mm a row
 	sizeRow    = 8.0 // points, row text (8 pt at least, for reading at the desk)
-	sizeMarkLo = 8.0 // points: the smallest the marks column shrinks to (then it is shortened)
+	sizeNoteLo = 8.0 // points: the smallest the notes column (head "marks") shrinks to (then it is shortened)
 	sizeHead   = 8.0 // points, column heads
 	sizeUnit   = 5.6 // points, the unit line of the heads
 	headH      = 8.0 // mm, the two-line column heads
@@ -52,7 +52,7 @@ func (s *sheet) cells(r *row) []string {
 		spacing,
 		turn,
 		fixed(r.total, DecimalsTotal),
-		joinMarks(r.marks),
+		joinNotes(r.notes),
 	}
 }
 
@@ -186,7 +186,7 @@ func (s *sheet) heads(x, y, w float64) float64 {
 		ink(p, inkText)
 		pad := 0.0
 		if c.align == "L" {
-			pad = 1.6 // as the marks in the rows
+			pad = 1.6 // as the notes in the rows
 		}
 		p.SetXY(cx+pad, y+0.6)
 		p.CellFormat(cw, 3.4, c.head, "", 0, c.align, false, 0, "")
@@ -225,9 +225,9 @@ func (s *sheet) tableRow(x, y, w float64, r *row) {
 		txt := cells[j]
 		s.font(style, sizeRow)
 		if c.align == "L" {
-			// Marks: shrink to fit, then shorten.
+			// Notes: shrink to fit, then shorten.
 			size := sizeRow
-			for size > sizeMarkLo && p.GetStringWidth(txt) > cw-1.8 {
+			for size > sizeNoteLo && p.GetStringWidth(txt) > cw-1.8 {
 				size -= 0.2
 				s.font(style, size)
 			}

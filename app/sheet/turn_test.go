@@ -37,14 +37,14 @@ func TestRows_TurnOverHalfATurn(t *testing.T) {
 		}
 	}
 	last := func(i int) string {
-		if len(tm.marks[i]) == 0 {
+		if len(tm.notes[i]) == 0 {
 			return ""
 		}
-		return tm.marks[i][len(tm.marks[i])-1]
+		return tm.notes[i][len(tm.notes[i])-1]
 	}
 	for i, want := range []string{"", "90°, 180°", "270°, 360°, 450°", "540°, 630°, 720°", "810°, 900°"} {
 		if i > 0 && last(i) != want {
-			t.Errorf("frame %d marks %q, want the quarter turns %q", i, tm.marks[i], want)
+			t.Errorf("frame %d marks %q, want the quarter turns %q", i, tm.notes[i], want)
 		}
 	}
 }

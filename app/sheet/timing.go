@@ -28,7 +28,7 @@ type timing struct {
 	frames  []physics.Frame
 	total   []float64 // total turn since release at each frame, degrees
 	roles   []Role
-	marks   [][]string // marks at each frame, in print order
+	notes   [][]string // notes at each frame (key, breakdown, quarter turns, flips, onset), in print order
 	keys    []int      // key frames, ascending
 	flips   []int      // frame of each flip of a tumble (first at or after the flip time)
 	onset   int        // first frame at or after the verdict's onset; -1 if none in the take
@@ -81,7 +81,7 @@ func flipFrames(v *physics.Verdict, r physics.Rate, tk *physics.Take) []int {
 
 // quarterSlack is how close (degrees) a total turn may come to a multiple
 // of 90 degrees to count as having reached it, so that a spin of exactly
-// 30 degrees a frame marks 90 degrees on frame 3 despite round-off in the
+// 30 degrees a frame notes 90 degrees on frame 3 despite round-off in the
 // sum.
 const quarterSlack = 1e-7
 
@@ -89,10 +89,10 @@ const quarterSlack = 1e-7
 // has reached.
 func quarters(deg float64) int { return int(math.Floor((deg + quarterSlack) / 90)) }
 
-// quarterMark names the multiples of 90 degrees the total turn passes in
+// quarterNote names the multiples of 90 degrees the total turn passes in
 // one frame, from the (m0+1)th to the m1th: "90°", "90°, 180°", or for
 // more than three "90°–450° (5 quarters)".
-func quarterMark(m0, m1 int) string {
+func quarterNote(m0, m1 int) string {
 	n := m1 - m0
 	q := func(m int) string { return strconv.Itoa(90*m) + "°" }
 	switch {
@@ -112,7 +112,7 @@ func quarterMark(m0, m1 int) string {
 func analyse(tk *physics.Take, r physics.Rate, v *physics.Verdict) *timing {
 	n := len(tk.Frames)
 	tm := &timing{rate: r, frames: tk.Frames, total: make([]float64, n), roles: make([]Role, n),
-		marks: make([][]string, n), onset: -1}
+		notes: make([][]string, n), onset: -1}
 	half := 180.0
 	dt := r.Time(1)
 	for i := range tk.Frames {
@@ -127,7 +127,7 @@ func analyse(tk *physics.Take, r physics.Rate, v *physics.Verdict) *timing {
 	tm.keys = keyFrames(tk)
 	last := n - 1
 	apex := min(max(tk.ApexFrame, 0), last)
-	add := func(i int, s string) { tm.marks[i] = append(tm.marks[i], s) }
+	add := func(i int, s string) { tm.notes[i] = append(tm.notes[i], s) }
 
 	// Keys first, then breakdowns, quarter turns, flips and the onset.
 	for _, k := range tm.keys {
@@ -155,7 +155,7 @@ func analyse(tk *physics.Take, r physics.Rate, v *physics.Verdict) *timing {
 	for i := 1; i < n; i++ {
 		m0, m1 := quarters(tm.total[i-1]), quarters(tm.total[i])
 		if m1 > m0 {
-			add(i, quarterMark(m0, m1))
+			add(i, quarterNote(m0, m1))
 		}
 	}
 	tm.flips = flipFrames(v, r, tk)
@@ -175,16 +175,16 @@ func analyse(tk *physics.Take, r physics.Rate, v *physics.Verdict) *timing {
 type row struct {
 	frame   int
 	cm      r3.Vec
-	spacing float64 // m, since the previous row
-	turn    float64 // degrees, since the previous row
-	total   float64 // degrees since release
-	role    Role    // the strongest role of the frames the row stands for
-	marks   []string
+	spacing float64  // m, since the previous row
+	turn    float64  // degrees, since the previous row
+	total   float64  // degrees since release
+	role    Role     // the strongest role of the frames the row stands for
+	notes   []string // the notes column (printed under the head "marks")
 }
 
 // rows returns the table rows: every frame, or with twos every other frame
 // (0, 2, 4, ...). On twos a row's drawing is held for the next frame too,
-// so the marks of that skipped frame join the row with "(at N)", its role
+// so the notes of that skipped frame join the row with "(at N)", its role
 // counts toward the row's, and spacing and turn are measured from the
 // previous listed row: the straight distance between the two centres of
 // mass and the angle turned along the motion (the frames' TurnDeg added,
@@ -198,7 +198,7 @@ func (tm *timing) rows(twos bool) []row {
 	var out []row
 	for i := 0; i < len(tm.frames); i += step {
 		f := &tm.frames[i]
-		r := row{frame: f.N, cm: f.CM, total: tm.total[i], role: tm.roles[i], marks: slices.Clone(tm.marks[i])}
+		r := row{frame: f.N, cm: f.CM, total: tm.total[i], role: tm.roles[i], notes: slices.Clone(tm.notes[i])}
 		switch {
 		case i == 0:
 		case step == 1:
@@ -210,8 +210,8 @@ func (tm *timing) rows(twos bool) []row {
 		}
 		for j := i + 1; j < i+step && j < len(tm.frames); j++ {
 			r.role = max(r.role, tm.roles[j])
-			for _, m := range tm.marks[j] {
-				r.marks = append(r.marks, m+" (at "+strconv.Itoa(tm.frames[j].N)+")")
+			for _, m := range tm.notes[j] {
+				r.notes = append(r.notes, m+" (at "+strconv.Itoa(tm.frames[j].N)+")")
 			}
 		}
 		out = append(out, r)

@@ -54,8 +54,8 @@ func TestQuarters(t *testing.T) {
 		m0, m1 int
 		want   string
 	}{{0, 1, "90°"}, {1, 3, "180°, 270°"}, {3, 6, "360°, 450°, 540°"}, {0, 5, "90°–450° (5 quarters)"}} {
-		if got := quarterMark(c.m0, c.m1); got != c.want {
-			t.Errorf("quarterMark(%d, %d) = %q, want %q", c.m0, c.m1, got, c.want)
+		if got := quarterNote(c.m0, c.m1); got != c.want {
+			t.Errorf("quarterNote(%d, %d) = %q, want %q", c.m0, c.m1, got, c.want)
 		}
 	}
 }
@@ -107,8 +107,8 @@ func TestAnalyse_SyntheticTake(t *testing.T) {
 		{"flip 2"}, {"breakdown", "270°"}, nil, {"key: landing", "360°", "flip 3"},
 	}
 	for i, w := range want {
-		if !slices.Equal(tm.marks[i], w) {
-			t.Errorf("frame %d: marks %q, want %q", i, tm.marks[i], w)
+		if !slices.Equal(tm.notes[i], w) {
+			t.Errorf("frame %d: marks %q, want %q", i, tm.notes[i], w)
 		}
 	}
 	wantRoles := []Role{Key, InBetween, Breakdown, InBetween, Key, InBetween, Breakdown, InBetween, Key}
@@ -125,11 +125,11 @@ func TestAnalyse_SyntheticTake(t *testing.T) {
 	if len(rows) != 5 {
 		t.Fatalf("%d rows on twos, want 5", len(rows))
 	}
-	if r := rows[1]; r.frame != 2 || !slices.Equal(r.marks, []string{"breakdown", "90°", "flip 1 (at 3)"}) {
-		t.Errorf("row 1: frame %d marks %q", r.frame, r.marks)
+	if r := rows[1]; r.frame != 2 || !slices.Equal(r.notes, []string{"breakdown", "90°", "flip 1 (at 3)"}) {
+		t.Errorf("row 1: frame %d marks %q", r.frame, r.notes)
 	}
-	if r := rows[0]; !slices.Equal(r.marks, []string{"key: release", "onset (at 1)"}) {
-		t.Errorf("row 0 marks %q", r.marks)
+	if r := rows[0]; !slices.Equal(r.notes, []string{"key: release", "onset (at 1)"}) {
+		t.Errorf("row 0 marks %q", r.notes)
 	}
 	if r := rows[2]; math.Abs(r.spacing-0.2) > 1e-12 || math.Abs(r.turn-100) > 1e-9 || r.total != 200 {
 		t.Errorf("row 2 on twos: spacing %g turn %g total %g, want 0.2, 100, 200", r.spacing, r.turn, r.total)
