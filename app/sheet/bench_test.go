@@ -5,6 +5,8 @@ import (
 	"fmt"
 	"strings"
 	"testing"
+
+	"github.com/go-pdf/fpdf"
 )
 
 // BenchmarkWrite_100Frames lays out and writes the sheet of a 100-frame
@@ -62,9 +64,9 @@ func BenchmarkWrite_Parts(b *testing.B) {
 }
 
 // BenchmarkWrite_NameLength: the sheet's cost against the project name's
-// length (up to the limit).
+// length, up to project.MaxNameLength.
 func BenchmarkWrite_NameLength(b *testing.B) {
-	for _, n := range []int{1000, 10000, 100000} {
+	for _, n := range []int{10, 100, 1000} {
 		in := manyParts(b, 1, n)
 		b.Run(fmt.Sprint(n), func(b *testing.B) {
 			var buf bytes.Buffer
@@ -72,6 +74,24 @@ func BenchmarkWrite_NameLength(b *testing.B) {
 				buf.Reset()
 				if err := Write(&buf, in, Options{}); err != nil {
 					b.Fatal(err)
+				}
+			}
+		})
+	}
+}
+
+// BenchmarkFitText: shortening a text to a cell, against its length (far
+// past the name limit, to show the growth): n log n, where dropping one
+// character at a time was n^2 (a 100000-character name took 21 s).
+func BenchmarkFitText(b *testing.B) {
+	p := fpdf.New("P", "mm", "A4", "")
+	p.SetFont("Helvetica", "", 10)
+	for _, n := range []int{1000, 10000, 100000} {
+		s := strings.Repeat("frying pan ", n/11+1)[:n]
+		b.Run(fmt.Sprint(n), func(b *testing.B) {
+			for b.Loop() {
+				if t := fitText(p, s, 120); len(t) == 0 || len(t) >= len(s) {
+					b.Fatalf("fitText gave %d bytes", len(t))
 				}
 			}
 		})
