@@ -36,3 +36,15 @@ func TestWindow_ControlCharactersInNamesEscaped(t *testing.T) {
 		t.Errorf("document names changed: %q, %q", d.Name, d.Prop.Parts[0].Name)
 	}
 }
+
+func TestWindow_ErrorDialogEscapesControlCharacters(t *testing.T) {
+	w := newTestWindow(t, "frying-pan")
+	bad := filepath.Join(t.TempDir(), "pan\x1b[31m\a.json")
+	if w.openPath(bad) {
+		t.Fatal("a missing file opened")
+	}
+	msg := w.lastDialog.message
+	if strings.ContainsAny(msg, "\x1b\a") || !strings.Contains(msg, `pan\x1b[31m\x07.json`) {
+		t.Errorf("dialog message %q", msg)
+	}
+}

@@ -475,8 +475,9 @@ func setValue(f *widgets.NumberField, v float64) {
 	f.SetValue(v)
 }
 
-// errorText is how the window words an error for a dialog.
-func errorText(err error) string { return fmt.Sprint(err) }
+// errorText is how the window words an error for a dialog, with control
+// characters (from a file or project name) shown as escapes.
+func errorText(err error) string { return printable.String(fmt.Sprint(err)) }
 
 // newLabel returns a label that truncates instead of widening its column.
 func newLabel(text string) *widget.Label {
