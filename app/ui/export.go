@@ -19,6 +19,7 @@ import (
 	"propflight/app/fsutil"
 	"propflight/app/project"
 	"propflight/app/sheet"
+	"propflight/internal/printable"
 	"propflight/widgets/wire"
 )
 
@@ -199,7 +200,7 @@ func (w *Window) runExportWith(j exportJob, path string, res editor.Result, repl
 			close(cancel)
 		}
 	})
-	label := widget.NewLabel("Writing " + filepath.Base(path) + "…")
+	label := widget.NewLabel("Writing " + printable.String(filepath.Base(path)) + "…")
 	d = dialog.NewCustomWithoutButtons(j.title, sized(container.NewVBox(label, bar, stop), 360, 0), w.win)
 	done := func(what string, err error) {
 		d.Hide()

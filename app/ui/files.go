@@ -101,7 +101,7 @@ func (w *Window) startIn(d interface{ SetLocation(fyne.ListableURI) }) {
 // the current project stays as it was. It reports whether it opened.
 func (w *Window) openPath(path string) bool {
 	if err := w.ed.Open(path); err != nil {
-		w.showError("Could not open "+filepath.Base(path), err)
+		w.showError("Could not open "+printable.String(filepath.Base(path)), err)
 		return false
 	}
 	w.recent.Add(path)
@@ -144,8 +144,9 @@ func (w *Window) savePicked(dir, name string, then func()) {
 // confirmReplace asks before replacing the existing file path; replace
 // runs on Replace.
 func (w *Window) confirmReplace(path string, replace func()) {
-	w.ask("Replace "+filepath.Base(path)+"?",
-		fmt.Sprintf("%s already exists in %s. Saving replaces it.", filepath.Base(path), filepath.Dir(path)), 420,
+	base := printable.String(filepath.Base(path))
+	w.ask("Replace "+base+"?",
+		fmt.Sprintf("%s already exists in %s. Saving replaces it.", base, printable.String(filepath.Dir(path))), 420,
 		answer{label: "Cancel"},
 		answer{label: "Replace", run: replace, look: widget.DangerImportance})
 }
@@ -215,7 +216,7 @@ func (w *Window) saveTo(path string, then func()) {
 // saved finishes a save to path that ended with err, and reports success.
 func (w *Window) saved(path string, err error) bool {
 	if err != nil {
-		w.showError("Could not save "+filepath.Base(path), err)
+		w.showError("Could not save "+printable.String(filepath.Base(path)), err)
 		return false
 	}
 	w.recent.Add(path)
@@ -293,8 +294,8 @@ func (w *Window) recentItems() []*fyne.MenuItem {
 	items := make([]*fyne.MenuItem, 0, len(files))
 	for _, p := range files {
 		p := p
-		items = append(items, fyne.NewMenuItem(p, func() {
-			w.confirmDiscard("Opening "+filepath.Base(p), func() { w.openPath(p) }, nil)
+		items = append(items, fyne.NewMenuItem(printable.String(p), func() {
+			w.confirmDiscard("Opening "+printable.String(filepath.Base(p)), func() { w.openPath(p) }, nil)
 		}))
 	}
 	return items

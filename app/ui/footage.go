@@ -324,7 +324,7 @@ func (p *footagePane) sync(d *project.Document) {
 	case p.seq != nil:
 		p.status.Importance = widget.MediumImportance
 		w, h := p.seq.Size()
-		p.status.SetText(fmt.Sprintf("%s: %d frames, %d×%d pixels, %s fps.", filepath.Base(p.seq.Path()), p.seq.Len(), w, h, rateLabelText(p.seq.FPS())))
+		p.status.SetText(fmt.Sprintf("%s: %d frames, %d×%d pixels, %s fps.", printable.String(filepath.Base(p.seq.Path())), p.seq.Len(), w, h, rateLabelText(p.seq.FPS())))
 	default:
 		p.status.Importance = widget.MediumImportance
 		p.status.SetText("No footage loaded.")
