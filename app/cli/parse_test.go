@@ -130,3 +130,13 @@ func TestParse_UsageErrors(t *testing.T) {
 		}
 	}
 }
+
+// BenchmarkParse: a sheet command line with several flags.
+func BenchmarkParse(b *testing.B) {
+	args := []string{"sheet", "pan.json", "-o", "s.pdf", "--paper", "letter", "--start-frame", "1001", "--start-timecode", "01:00:00:00", "--view", "top"}
+	for b.Loop() {
+		if _, err := Parse(args); err != nil {
+			b.Fatal(err)
+		}
+	}
+}

@@ -120,10 +120,13 @@ func CommandNames() []string {
 // flag returns the command's flag spelled name (canonical or alias), or
 // nil; --help belongs to every command.
 func (s *Spec) flag(name string) *Flag {
-	for _, f := range append(slices.Clone(s.Flags), helpFlag) {
+	for _, f := range s.Flags {
 		if f.Name == name || slices.Contains(f.Aliases, name) {
 			return f
 		}
+	}
+	if helpFlag.Name == name || slices.Contains(helpFlag.Aliases, name) {
+		return helpFlag
 	}
 	return nil
 }

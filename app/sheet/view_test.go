@@ -120,3 +120,16 @@ func TestParsePoseView(t *testing.T) {
 		t.Error("no error for an unknown view")
 	}
 }
+
+// BenchmarkBestPoseView: the cost the best view adds to a sheet (the
+// dinner plate's 25 poses, four views).
+func BenchmarkBestPoseView(b *testing.B) {
+	in := presetInput(b, "dinner-plate")
+	s, err := newSheet(in, Options{PoseView: PoseFront})
+	if err != nil {
+		b.Fatal(err)
+	}
+	for b.Loop() {
+		BestPoseView(&s.sc.Prop, &s.sc.Mass, s.tk, s.poses)
+	}
+}
