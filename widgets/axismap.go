@@ -46,7 +46,7 @@ type AxisMap struct {
 	Synchronous bool
 
 	mapper    *physics.AxisMapper
-	mark      r3.Vec // the throw's spin direction, prop frame; zero for none
+	spin      r3.Vec // the throw's spin direction, prop frame; zero for none
 	hover     r3.Vec // direction under the pointer, prop frame; zero for none
 	hoverView axisview.View
 	hoverText string
@@ -85,10 +85,10 @@ func (m *AxisMap) SetMapper(mapper *physics.AxisMapper) {
 // Mapper returns the mapper shown.
 func (m *AxisMap) Mapper() *physics.AxisMapper { return m.mapper }
 
-// SetMark rings direction dir (prop frame) in both views; a zero vector
+// SetSpin rings direction dir (prop frame) in both views; a zero vector
 // rings nothing.
-func (m *AxisMap) SetMark(dir r3.Vec) {
-	m.mark = dir
+func (m *AxisMap) SetSpin(dir r3.Vec) {
+	m.spin = dir
 	m.Refresh()
 }
 

@@ -108,7 +108,7 @@ func TestAxisMap_Tap_PicksDirection(t *testing.T) {
 
 func TestAxisMap_DrawsAtPixelSize(t *testing.T) {
 	m, mp := axisMapWindow(t)
-	m.SetMark(mp.Axes[2])
+	m.SetSpin(mp.Axes[2])
 	if m.img.Image == nil || m.img.Image.Bounds().Dx() != 480 || m.img.Image.Bounds().Dy() != 300 {
 		t.Fatalf("image %v, want 480 x 300", m.img.Image.Bounds())
 	}

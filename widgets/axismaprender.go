@@ -64,7 +64,7 @@ func (r *axisMapRenderer) place() {
 	white := color.NRGBA{255, 255, 255, 255}
 	for i, v := range []axisview.View{axisview.DownGreatest, axisview.DownLeast} {
 		c := r.marks[i]
-		p, ok := m.PositionOf(v, m.mark)
+		p, ok := m.PositionOf(v, m.spin)
 		if !ok {
 			c.Hide()
 			continue

@@ -88,7 +88,7 @@ func (p *axisMapPane) show(res editor.Result) {
 		p.mass, p.thr = mp, res.Thresholds
 		p.view.SetMapper(physics.NewAxisMapper(&mp, res.Thresholds))
 	}
-	p.view.SetMark(res.Scene.Throw.SpinAxis(&mp))
+	p.view.SetSpin(res.Scene.Throw.SpinAxis(&mp))
 }
 
 // pick sets the throw's spin axis to dir (prop frame), keeping the rate:
