@@ -17,6 +17,8 @@ const (
 	axisMapHoverRing = 4
 )
 
+var _ fyne.WidgetRenderer = (*axisMapRenderer)(nil)
+
 // axisMapRenderer lays the drawn map and the rings over it.
 type axisMapRenderer struct {
 	m       *AxisMap

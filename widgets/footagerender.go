@@ -27,6 +27,8 @@ const (
 	markHaloWidth = 3.5
 )
 
+var _ fyne.WidgetRenderer = (*footageRenderer)(nil)
+
 // footageRenderer draws the frame and the overlay as stretched images over
 // the letterboxed rectangle, the marks as pooled lines and circles, and the
 // message as a wrapping label. rebuild places everything and is shared by

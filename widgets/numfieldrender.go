@@ -42,6 +42,8 @@ const (
 	unitChars  = "turns/s"
 )
 
+var _ fyne.WidgetRenderer = (*numberFieldRenderer)(nil)
+
 // numberFieldRenderer lays the field out in one row: label, slider (or
 // the message), entry, unit.
 type numberFieldRenderer struct {

@@ -312,6 +312,8 @@ func (p *Preview) render(w, h int) image.Image {
 	return p.img
 }
 
+var _ fyne.WidgetRenderer = (*previewRenderer)(nil)
+
 // previewRenderer shows the preview's raster over its whole size.
 type previewRenderer struct {
 	p *Preview

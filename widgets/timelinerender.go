@@ -10,6 +10,8 @@ import (
 	"fyne.io/fyne/v2/theme"
 )
 
+var _ fyne.WidgetRenderer = (*timelineRenderer)(nil)
+
 // timelineRenderer draws the strip from canvas primitives. The tick, label
 // and flag objects are pooled and rebuilt for the current size by rebuild,
 // which Layout and Refresh share.

@@ -57,6 +57,8 @@ func newAxisMapPane(w *Window) *axisMapPane {
 // axisMapHoverLines is how many lines of text the hover line has room for.
 const axisMapHoverLines = 4
 
+var _ fyne.Layout = fixedHeight(0)
+
 // fixedHeight is a layout that asks for exactly its height (and the
 // objects' width), whatever the objects want: text longer than that is
 // clipped rather than moving the objects around it.
@@ -70,12 +72,7 @@ func (h fixedHeight) MinSize(objs []fyne.CanvasObject) fyne.Size {
 	return fyne.NewSize(w, float32(h))
 }
 
-func (h fixedHeight) Layout(objs []fyne.CanvasObject, size fyne.Size) {
-	for _, o := range objs {
-		o.Move(fyne.NewPos(0, 0))
-		o.Resize(size)
-	}
-}
+func (h fixedHeight) Layout(objs []fyne.CanvasObject, size fyne.Size) { stack(objs, size) }
 
 // show follows result res: a new map when the prop's principal moments or
 // axes or the thresholds changed, and the ring on the throw's spin.

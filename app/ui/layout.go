@@ -10,6 +10,8 @@ import (
 	"fyne.io/fyne/v2/widget"
 )
 
+var _ fyne.Layout = atLeast{}
+
 // atLeast is a layout that gives its objects the whole space and asks for
 // at least W by H (device-independent units): for a scroll container or a
 // list, whose own minimum is tiny, at the side of a border layout.
@@ -25,7 +27,11 @@ func (l atLeast) MinSize(objs []fyne.CanvasObject) fyne.Size {
 	return fyne.NewSize(max(s.Width, l.W), max(s.Height, l.H))
 }
 
-func (l atLeast) Layout(objs []fyne.CanvasObject, size fyne.Size) {
+func (l atLeast) Layout(objs []fyne.CanvasObject, size fyne.Size) { stack(objs, size) }
+
+// stack lays every object over the whole size, as layout.NewStackLayout
+// does: the Layout of atLeast and fixedHeight.
+func stack(objs []fyne.CanvasObject, size fyne.Size) {
 	for _, o := range objs {
 		o.Move(fyne.NewPos(0, 0))
 		o.Resize(size)

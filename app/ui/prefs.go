@@ -72,6 +72,8 @@ func (w *Window) restorePrefs() {
 	}
 }
 
+var _ fyne.Theme = variantTheme{}
+
 // variantTheme is the default theme held at one variant: the user's
 // light or dark choice, whatever the system's.
 type variantTheme struct {
