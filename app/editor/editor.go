@@ -156,7 +156,7 @@ func (e *Editor) Save(path string) error { return e.SaveWith(path, fsutil.Option
 // wrapping fsutil.ErrReadOnly).
 func (e *Editor) SaveWith(path string, opt fsutil.Options) error {
 	if path == "" {
-		return errors.New("save: no file name")
+		return errors.New("editor: save: no file name")
 	}
 	doc := e.Doc()
 	doc.File = path

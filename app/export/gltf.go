@@ -86,7 +86,7 @@ func WriteGLTF(w io.Writer, in Input, opt GLTFOptions) error {
 	}
 	mesh := wire.PropMesh(in.Prop, detail)
 	if len(mesh.Triangles) == 0 {
-		return errors.New("gltf: the prop has no triangles to export")
+		return errors.New("export: the prop has no triangles to put in the glTF file")
 	}
 	doc, bin := buildGLTF(in, mesh, keys)
 	if !opt.Binary {
@@ -173,14 +173,14 @@ type key struct {
 // signs are made continuous (q and -q are one rotation).
 func animationKeys(in Input) ([]key, error) {
 	if in.Take == nil || len(in.Take.Frames) == 0 {
-		return nil, errors.New("gltf: no take to export")
+		return nil, errors.New("export: no take to export as glTF")
 	}
 	frames := in.Take.Frames
 	// Raise the key rate by whole multiples until every key-to-key turn is
 	// under the bound (the turn within a frame need not be even).
 	for k := int(math.Floor(maxTurn(frames)/MaxKeyTurnDeg)) + 1; maxTurn(frames) >= MaxKeyTurnDeg; k++ {
 		if k > 1024 {
-			return nil, errors.New("gltf: the prop turns too fast to key (more than 1024 keys a frame)")
+			return nil, errors.New("export: the prop turns too fast to key in glTF (more than 1024 keys a frame)")
 		}
 		if err := checkKeys(in.Take.LandingFrame+1, k); err != nil {
 			return nil, err
@@ -189,7 +189,7 @@ func animationKeys(in Input) ([]key, error) {
 		th.FPS = physics.Rate{Num: th.FPS.Num * int64(k), Den: th.FPS.Den}
 		fine, err := physics.Simulate(in.Prop, in.Mass, &th)
 		if err != nil {
-			return nil, fmt.Errorf("gltf: sub-frame keys: %w", err)
+			return nil, fmt.Errorf("export: glTF sub-frame keys: %w", err)
 		}
 		// Keep the fine frames up to the take's last frame.
 		last := in.Take.LandingFrame * k
@@ -208,7 +208,7 @@ func animationKeys(in Input) ([]key, error) {
 	}
 	for i := 1; i < len(keys); i++ {
 		if float32(keys[i].t) <= float32(keys[i-1].t) {
-			return nil, fmt.Errorf("gltf: key times %g and %g s are equal in single precision; lower the frame rate", keys[i-1].t, keys[i].t)
+			return nil, fmt.Errorf("export: glTF key times %g and %g s are equal in single precision; lower the frame rate", keys[i-1].t, keys[i].t)
 		}
 	}
 	return keys, nil

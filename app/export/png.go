@@ -107,16 +107,16 @@ func WritePNGSequence(dir string, in Input, opt PNGOptions, progress func(done, 
 		return nil, err
 	}
 	if in.Take == nil || len(in.Take.Frames) == 0 {
-		return nil, errors.New("png: the take has no frames to render")
+		return nil, errors.New("export: the take has no frames to render as PNG")
 	}
 	if in.Prop == nil || len(in.Prop.Parts) == 0 {
-		return nil, errors.New("png: no prop to render")
+		return nil, errors.New("export: no prop to render as PNG")
 	}
 	mp := in.Mass
 	if mp == nil {
 		m, err := in.Prop.MassProps()
 		if err != nil {
-			return nil, fmt.Errorf("png: %w", err)
+			return nil, fmt.Errorf("export: PNG frames: %w", err)
 		}
 		mp = &m
 	}
