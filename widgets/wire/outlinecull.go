@@ -67,32 +67,23 @@ func (o *Outline) buildPatches(v []r3.Vec, t [][3]int32) {
 	}
 	// Sort on the normal's bin first, so that a thin wall's two sides
 	// never share a patch, then along the Morton curve.
-	type faceKey struct {
-		key uint64
-		f   int32
-	}
-	keys := make([]faceKey, nf)
-	q := func(x float64) uint64 { return uint64(math.Min(1023, math.Max(0, (x/span)*1023))) }
+	// One key a face: bin (7 bits), Morton code of the centroid on a
+	// 256-cell grid a side (24 bits), face index (32 bits).
+	keys := make([]uint64, nf)
+	q := func(x float64) uint64 { return uint64(math.Min(255, math.Max(0, (x/span)*255))) }
 	for f := range nf {
 		c := r3.Sub(cent[f], lo)
-		keys[f] = faceKey{normalBin(o.normal[f])<<30 | morton(q(c.X), q(c.Y), q(c.Z)), int32(f)}
+		keys[f] = (normalBin(o.normal[f])<<24|morton(q(c.X), q(c.Y), q(c.Z)))<<32 | uint64(f)
 	}
-	slices.SortFunc(keys, func(a, b faceKey) int {
-		if a.key != b.key {
-			if a.key < b.key {
-				return -1
-			}
-			return 1
-		}
-		return int(a.f - b.f)
-	})
+	slices.Sort(keys)
 	pos := make([]int32, nf) // face -> place in the new order
 	order := make([]int32, nf)
 	normal := make([][3]float64, nf)
 	offset := make([]float64, nf)
 	for i, k := range keys {
-		pos[k.f], order[i] = int32(i), k.f
-		normal[i], offset[i] = o.normal[k.f], o.offset[k.f]
+		f := int32(uint32(k))
+		pos[f], order[i] = int32(i), f
+		normal[i], offset[i] = o.normal[f], o.offset[f]
 	}
 	o.normal, o.offset = normal, offset
 	o.tri = make([][3]int32, nf)
@@ -175,15 +166,27 @@ func (o *Outline) buildPatches(v []r3.Vec, t [][3]int32) {
 		p0, p1 := uint64(s[0]/patchFaces), uint64(s[1]/patchFaces)
 		return min(p0, p1)<<32 | max(p0, p1)
 	}
-	slices.SortFunc(o.border, func(a, b int32) int {
-		if ka, kb := pair(a), pair(b); ka != kb {
-			if ka < kb {
-				return -1
-			}
-			return 1
+	// Sort on (p0, p1) by two stable counting sorts, p1 then p0 (a
+	// least-significant-digit radix sort): linear in the edges.
+	byPatch := func(in []int32, digit func(e int32) int32) []int32 {
+		count := make([]int32, np+1)
+		for _, e := range in {
+			count[digit(e)+1]++
 		}
-		return int(a - b)
-	})
+		for p := range np {
+			count[p+1] += count[p]
+		}
+		out := make([]int32, len(in))
+		for _, e := range in {
+			d := digit(e)
+			out[count[d]] = e
+			count[d]++
+		}
+		return out
+	}
+	lo0 := func(e int32) int32 { s := o.sides[e]; return min(s[0], s[1]) / patchFaces }
+	hi1 := func(e int32) int32 { s := o.sides[e]; return max(s[0], s[1]) / patchFaces }
+	o.border = byPatch(byPatch(o.border, hi1), lo0)
 	o.runs = o.runs[:0]
 	for i := 0; i < len(o.border); {
 		k := pair(o.border[i])
