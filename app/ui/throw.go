@@ -64,11 +64,23 @@ const (
 	timingOnTwos = "on twos"
 )
 
+// newThrowPanel builds the throw panel: the spin, the release, the
+// release pose and the world and timing, in that order down the panel.
 func newThrowPanel(w *Window) *throwPanel {
 	t := &throwPanel{w: w}
-	fs := &t.fields
+	t.buildSpin()
+	t.buildRelease()
+	t.buildWorld()
+	t.fields.alignLabels()
+	t.content = t.layout()
+	return t
+}
 
-	// Spin.
+// buildSpin makes the spin controls: the axis, the tilt of a named axis or
+// the direction of a free one, and the rate in turns per second or frames
+// per turn.
+func (t *throwPanel) buildSpin() {
+	w, fs := t.w, &t.fields
 	t.axis = widget.NewSelect(append(append([]string(nil), axisNames...), axisFree), t.pickAxis)
 	t.tilt = w.newField(fs, "tilt", widgets.Angle, -90, 90, func(v float64, final bool) {
 		w.edit("Change tilt", "tilt", final, func(d *project.Document) error {
@@ -123,8 +135,12 @@ func newThrowPanel(w *Window) *throwPanel {
 	})
 	t.fpt.SetLog(true)
 	t.rateNote = note("")
+}
 
-	// Release.
+// buildRelease makes the release controls: by speed and angle, or by hang
+// time, distance and heading.
+func (t *throwPanel) buildRelease() {
+	w, fs := t.w, &t.fields
 	t.relMode = widget.NewRadioGroup([]string{relSpeed, relHang}, func(s string) {
 		if s == "" {
 			return
@@ -166,8 +182,12 @@ func newThrowPanel(w *Window) *throwPanel {
 	t.byHang = container.NewVBox(t.hang, t.distance, t.heading,
 		note("Time until the centre of mass is back at release height, and how far it travels meanwhile; heading 0° is +x, 90° is −z."))
 	t.relNote = note("")
+}
 
-	// Where and when.
+// buildWorld makes the controls of where and when: the release height
+// and pose, the ground, the frame rate, ones or twos and gravity.
+func (t *throwPanel) buildWorld() {
+	w, fs := t.w, &t.fields
 	t.height = w.newField(fs, "release height", widgets.Length, 0, 20, func(v float64, final bool) {
 		w.edit("Change release height", "height", final, func(d *project.Document) error {
 			setReleaseHeight(d, v)
@@ -206,9 +226,11 @@ func newThrowPanel(w *Window) *throwPanel {
 			return nil
 		})
 	})
-	t.fields.alignLabels()
+}
 
-	t.content = container.NewVBox(
+// layout returns the panel's content, the controls under their headings.
+func (t *throwPanel) layout() *fyne.Container {
+	return container.NewVBox(
 		heading("Spin"),
 		container.NewBorder(nil, nil, widget.NewLabel("spin about the"), nil, t.axis),
 		t.named, t.free,
@@ -227,7 +249,6 @@ func newThrowPanel(w *Window) *throwPanel {
 		t.custom,
 		t.twos,
 	)
-	return t
 }
 
 // onTwos reports whether the preview holds each pose for two frames.
