@@ -212,14 +212,70 @@ func (p *propPanel) syncPart(d *project.Document) {
 	}
 }
 
-// buildPart makes the controls of the selected part for key.
+// dimensionSpan is how far a dimension's or a mass's slider reaches: a
+// factor of dimensionSpan either side of its value, so a drag trims the
+// part; typing reaches the whole range.
+const dimensionSpan = 3
+
+// buildPart makes the controls of the selected part for key, in the order
+// they appear: name and shape, dimensions, a mesh part's file controls,
+// mass or density (and a hollow mesh's wall), and the place in the prop.
 func (p *propPanel) buildPart(key partKey) {
-	w := p.w
 	i := key.index
 	p.built = key
 	p.partF = nil
 	tag := func(field string) string { return fmt.Sprintf("part %d %s", i, field) }
 
+	p.buildNameAndShape(key, tag)
+	dims := p.dimensionFields(key, tag)
+	amount := p.amountField(key, tag)
+	var meshObjs []fyne.CanvasObject
+	var wall *widgets.NumberField
+	p.units, p.up, p.hollow, p.meshFacts = nil, nil, nil, nil
+	if key.shape == meshShape {
+		meshObjs = p.meshControls(i, p.w.ed.Doc().Prop.Parts[i])
+		if key.hollow {
+			wall = p.wallField(i)
+		}
+	}
+	if key.shape == "shell" {
+		p.massMode.Disable()
+	}
+	place := p.placeFields(i, tag)
+	p.partF.alignLabels()
+
+	objs := []fyne.CanvasObject{
+		heading(fmt.Sprintf("Part %d of %d", i+1, key.parts)),
+		container.NewBorder(nil, nil, widget.NewLabel("name"), nil, p.name),
+		container.NewBorder(nil, nil, widget.NewLabel("shape"), nil, p.shape),
+		note(shapeNote(key.shape)),
+	}
+	objs = append(objs, dims...)
+	objs = append(objs, meshObjs...)
+	objs = append(objs, p.massMode, amount)
+	if key.shape == "shell" {
+		objs = append(objs, note("A thin shell has no volume: give its mass."))
+	}
+	if key.shape == meshShape {
+		objs = append(objs, p.hollow)
+		if wall != nil {
+			objs = append(objs, wall, note("The mass lies in a wall this thick over the whole surface (a thin wall: keep it well under the part's size)."))
+		}
+		objs = append(objs, heading("Place in the prop"),
+			note("Where the file's origin sits in the prop and its turn about the prop's x, then y, then z axis (a mesh keeps its own coordinates)."))
+	} else {
+		objs = append(objs, heading("Place in the prop"),
+			note("Position of the part's own centre of mass and its turn about the prop's x, then y, then z axis."))
+	}
+	objs = append(objs, place...)
+	p.partBox.Objects = objs
+	p.partBox.Refresh()
+}
+
+// buildNameAndShape makes the part's name entry (one undo step a typing
+// run) and its shape picker (a mesh asks for the file first).
+func (p *propPanel) buildNameAndShape(key partKey, tag func(string) string) {
+	w, i := p.w, key.index
 	p.name = widget.NewEntry()
 	p.name.SetPlaceHolder(key.shape + " " + fmt.Sprint(i+1))
 	p.name.OnChanged = func(s string) {
@@ -245,11 +301,13 @@ func (p *propPanel) buildPart(key partKey) {
 			return nil
 		})
 	})
+}
 
-	// A dimension's slider spans a factor of dimensionSpan either side of
-	// its value, so a drag trims the part; typing reaches 1 mm to 2 m.
-	const dimensionSpan = 3
-
+// dimensionFields returns a length field for each dimension of the
+// part's shape: logarithmic sliders over dimensionSpan, typing from 1 mm
+// to 2 m.
+func (p *propPanel) dimensionFields(key partKey, tag func(string) string) []fyne.CanvasObject {
+	w, i := p.w, key.index
 	var dims []fyne.CanvasObject
 	for _, dm := range shapeDimensions(key.shape) {
 		dm := dm
@@ -263,7 +321,13 @@ func (p *propPanel) buildPart(key partKey) {
 		f.SetSpan(dimensionSpan)
 		dims = append(dims, f)
 	}
+	return dims
+}
 
+// amountField makes the mass-or-density choice (p.massMode) and returns
+// the field of the one the part gives.
+func (p *propPanel) amountField(key partKey, tag func(string) string) *widgets.NumberField {
+	w, i := p.w, key.index
 	p.massMode = widget.NewRadioGroup([]string{modeMass, modeDensity}, func(s string) {
 		if s == "" {
 			return
@@ -293,19 +357,13 @@ func (p *propPanel) buildPart(key partKey) {
 	}
 	amount.SetLog(true)
 	amount.SetSpan(dimensionSpan)
-	var meshObjs []fyne.CanvasObject
-	var wall *widgets.NumberField
-	p.units, p.up, p.hollow, p.meshFacts = nil, nil, nil, nil
-	if key.shape == meshShape {
-		meshObjs = p.meshControls(i, w.ed.Doc().Prop.Parts[i])
-		if key.hollow {
-			wall = p.wallField(i)
-		}
-	}
-	if key.shape == "shell" {
-		p.massMode.Disable()
-	}
+	return amount
+}
 
+// placeFields returns the part's position fields (x, y, z) then its
+// rotation fields (about the prop's x, y, z).
+func (p *propPanel) placeFields(i int, tag func(string) string) []fyne.CanvasObject {
+	w := p.w
 	var place, turn []fyne.CanvasObject
 	for k, axis := range []string{"x", "y", "z"} {
 		f := w.newField(&p.partF, "position "+axis, widgets.Length, -1, 1, func(v float64, final bool) {
@@ -325,35 +383,7 @@ func (p *propPanel) buildPart(key partKey) {
 		})
 		turn = append(turn, f)
 	}
-	p.partF.alignLabels()
-
-	objs := []fyne.CanvasObject{
-		heading(fmt.Sprintf("Part %d of %d", i+1, key.parts)),
-		container.NewBorder(nil, nil, widget.NewLabel("name"), nil, p.name),
-		container.NewBorder(nil, nil, widget.NewLabel("shape"), nil, p.shape),
-		note(shapeNote(key.shape)),
-	}
-	objs = append(objs, dims...)
-	objs = append(objs, meshObjs...)
-	objs = append(objs, p.massMode, amount)
-	if key.shape == "shell" {
-		objs = append(objs, note("A thin shell has no volume: give its mass."))
-	}
-	if key.shape == meshShape {
-		objs = append(objs, p.hollow)
-		if wall != nil {
-			objs = append(objs, wall, note("The mass lies in a wall this thick over the whole surface (a thin wall: keep it well under the part's size)."))
-		}
-		objs = append(objs, heading("Place in the prop"),
-			note("Where the file's origin sits in the prop and its turn about the prop's x, then y, then z axis (a mesh keeps its own coordinates)."))
-	} else {
-		objs = append(objs, heading("Place in the prop"),
-			note("Position of the part's own centre of mass and its turn about the prop's x, then y, then z axis."))
-	}
-	objs = append(objs, place...)
-	objs = append(objs, turn...)
-	p.partBox.Objects = objs
-	p.partBox.Refresh()
+	return append(place, turn...)
 }
 
 // shapeNote says how a shape's dimensions are measured.
