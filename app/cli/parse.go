@@ -113,44 +113,9 @@ func Parse(args []string) (Command, error) {
 	if len(args) == 0 {
 		return Command{}, nil
 	}
-	var flags []given
-	var positional []string
-	for i := 0; i < len(args); i++ {
-		a := args[i]
-		if a == "--" {
-			positional = append(positional, args[i+1:]...)
-			break
-		}
-		if len(a) < 2 || a[0] != '-' {
-			positional = append(positional, a)
-			continue
-		}
-		name, val, hasVal := strings.Cut(a, "=")
-		f, _ := anyFlag(name)
-		if f == nil && strings.HasPrefix(a, "-") && !strings.HasPrefix(a, "--") && len(a) > 2 && !hasVal {
-			// -oOUT: a one-letter alias with its value attached.
-			if g, _ := anyFlag(a[:2]); g != nil && g.Value != "" {
-				f, name, val, hasVal = g, a[:2], a[2:], true
-			}
-		}
-		if f == nil {
-			return Command{}, usagef("unknown flag %s%s (see propflight --help)", quote(name), suggestFlag(name))
-		}
-		if f.Value != "" {
-			if !hasVal {
-				if i+1 >= len(args) {
-					return Command{}, usagef("%s needs a value", f.display())
-				}
-				i++
-				val = args[i]
-			}
-			if val == "" {
-				return Command{}, usagef("%s needs a value", f.display())
-			}
-		} else if hasVal {
-			return Command{}, usagef("%s takes no value", f.display())
-		}
-		flags = append(flags, given{flag: f, spelled: name, value: val})
+	flags, positional, err := splitArgs(args)
+	if err != nil {
+		return Command{}, err
 	}
 	has := func(f *Flag) bool {
 		return slices.ContainsFunc(flags, func(g given) bool { return g.flag == f })
@@ -186,11 +151,76 @@ func Parse(args []string) (Command, error) {
 		return Command{Name: "help", Topic: spec.Name}, nil
 	}
 	cmd := Command{Name: spec.Name, spec: spec}
+	if err := cmd.setFlags(flags); err != nil {
+		return Command{}, err
+	}
+	if err := cmd.setOperand(operands); err != nil {
+		return Command{}, err
+	}
+	if spec.Check != nil {
+		if err := spec.Check(&cmd); err != nil {
+			return Command{}, err
+		}
+	}
+	return cmd, nil
+}
+
+// splitArgs sorts the arguments into flags with their values and the
+// positional ones (the command and its operand), in order. An unknown
+// flag, a missing value or a value given to a switch is a *UsageError.
+func splitArgs(args []string) ([]given, []string, error) {
+	var flags []given
+	var positional []string
+	for i := 0; i < len(args); i++ {
+		a := args[i]
+		if a == "--" {
+			positional = append(positional, args[i+1:]...)
+			break
+		}
+		if len(a) < 2 || a[0] != '-' {
+			positional = append(positional, a)
+			continue
+		}
+		name, val, hasVal := strings.Cut(a, "=")
+		f, _ := anyFlag(name)
+		if f == nil && strings.HasPrefix(a, "-") && !strings.HasPrefix(a, "--") && len(a) > 2 && !hasVal {
+			// -oOUT: a one-letter alias with its value attached.
+			if g, _ := anyFlag(a[:2]); g != nil && g.Value != "" {
+				f, name, val, hasVal = g, a[:2], a[2:], true
+			}
+		}
+		if f == nil {
+			return nil, nil, usagef("unknown flag %s%s (see propflight --help)", quote(name), suggestFlag(name))
+		}
+		if f.Value != "" {
+			if !hasVal {
+				if i+1 >= len(args) {
+					return nil, nil, usagef("%s needs a value", f.display())
+				}
+				i++
+				val = args[i]
+			}
+			if val == "" {
+				return nil, nil, usagef("%s needs a value", f.display())
+			}
+		} else if hasVal {
+			return nil, nil, usagef("%s takes no value", f.display())
+		}
+		flags = append(flags, given{flag: f, spelled: name, value: val})
+	}
+	return flags, positional, nil
+}
+
+// setFlags checks each given flag against the command's own (one that
+// goes with other commands, one given twice, a bad value) and keeps its
+// value.
+func (cmd *Command) setFlags(flags []given) error {
+	spec := cmd.spec
 	for _, g := range flags {
 		own := spec.flag(g.spelled)
 		if own == nil {
 			_, with := anyFlag(g.spelled)
-			return Command{}, usagef("%s: %s does not apply here (it goes with %s)", spec.Name, quote(g.spelled), strings.Join(with, " or "))
+			return usagef("%s: %s does not apply here (it goes with %s)", spec.Name, quote(g.spelled), strings.Join(with, " or "))
 		}
 		if cmd.Has(own.Name) {
 			prev := ""
@@ -200,41 +230,44 @@ func Parse(args []string) (Command, error) {
 					break
 				}
 			}
-			return Command{}, usagef("%s given twice (as %s and %s)", own.display(), quote(prev), quote(g.spelled))
+			return usagef("%s given twice (as %s and %s)", own.display(), quote(prev), quote(g.spelled))
 		}
 		v, err := own.check(g.value)
 		if err != nil {
-			return Command{}, usagef("%s: %v", spec.Name, err)
+			return usagef("%s: %v", spec.Name, err)
 		}
 		cmd.SetValue(own.Name, v)
 	}
+	return nil
+}
+
+// setOperand keeps the command's operand (the file), refusing one the
+// command does not take, two of them, standard input, a file with
+// --preset, and a missing one the command needs.
+func (cmd *Command) setOperand(operands []string) error {
+	spec := cmd.spec
 	switch {
 	case len(operands) > 0 && spec.Operand == "":
-		return Command{}, usagef("%s takes no file (got %s)", spec.Name, quote(operands[0]))
+		return usagef("%s takes no file (got %s)", spec.Name, quote(operands[0]))
 	case len(operands) > 1:
-		return Command{}, usagef("%s: more than one %s given (%s and %s)", spec.Name, spec.Operand, quote(operands[0]), quote(operands[1]))
+		return usagef("%s: more than one %s given (%s and %s)", spec.Name, spec.Operand, quote(operands[0]), quote(operands[1]))
 	case len(operands) == 1:
 		cmd.File = operands[0]
 	}
 	if cmd.File == "-" {
-		return Command{}, usagef("%s: reading %s from standard input is not supported; give a file name", spec.Name, spec.Operand)
+		return usagef("%s: reading %s from standard input is not supported; give a file name", spec.Name, spec.Operand)
 	}
 	if cmd.File != "" && cmd.Has(presetFlag.Name) {
-		return Command{}, usagef("%s: give FILE or --preset, not both", spec.Name)
+		return usagef("%s: give FILE or --preset, not both", spec.Name)
 	}
 	if cmd.File == "" && spec.OperandRequired {
 		msg := spec.MissingOperand
 		if msg == "" {
 			msg = "give " + spec.Operand
 		}
-		return Command{}, usagef("%s: %s (usage: %s)", spec.Name, msg, spec.usageLine())
+		return usagef("%s: %s (usage: %s)", spec.Name, msg, spec.usageLine())
 	}
-	if spec.Check != nil {
-		if err := spec.Check(&cmd); err != nil {
-			return Command{}, err
-		}
-	}
-	return cmd, nil
+	return nil
 }
 
 // parseHelp reads "help [COMMAND]".
