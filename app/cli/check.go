@@ -183,107 +183,145 @@ func partName(name string) string {
 // label is the width of the left column of the summary.
 const label = "%-16s"
 
-func writeSummary(w io.Writer, f *flight) {
-	sc, v, take := f.scene, &f.verdict, f.take
-	mp, th, rate := &sc.Mass, &sc.Throw, sc.Throw.FPS
-	thr := sc.Thresholds
-	p := func(format string, args ...any) { fmt.Fprintf(w, format+"\n", args...) }
-	row := func(name, format string, args ...any) { p(label+format, append([]any{name}, args...)...) }
-	sub := func(name, format string, args ...any) { p("  %-14s"+format, append([]any{name}, args...)...) }
+// summaryWriter writes check's readable summary: lines, rows with a
+// label in the left column, and indented sub-rows.
+type summaryWriter struct{ w io.Writer }
 
-	p("%s  (%s)", printable.String(sc.Name), printable.String(f.src.label))
-	p("")
+func (s summaryWriter) p(format string, args ...any) { fmt.Fprintf(s.w, format+"\n", args...) }
+
+func (s summaryWriter) row(name, format string, args ...any) {
+	s.p(label+format, append([]any{name}, args...)...)
+}
+
+func (s summaryWriter) sub(name, format string, args ...any) {
+	s.p("  %-14s"+format, append([]any{name}, args...)...)
+}
+
+// writeSummary writes check's summary of flight f: the prop, the throw,
+// the verdict and the flight, then the safety caution.
+func writeSummary(w io.Writer, f *flight) {
+	s := summaryWriter{w}
+	s.p("%s  (%s)", printable.String(f.scene.Name), printable.String(f.src.label))
+	s.p("")
+	s.prop(f)
+	s.throw(f)
+	s.verdict(f)
+	s.flight(f)
+	s.p("")
+	s.p("%s", Safety)
+}
+
+// prop writes the parts (mesh parts with their triangles), the notes, the
+// centre of mass, the principal moments and axes and the symmetry.
+func (s summaryWriter) prop(f *flight) {
+	sc, v := f.scene, &f.verdict
+	mp, thr := &sc.Mass, sc.Thresholds
 	parts := "parts"
 	if len(sc.Prop.Parts) == 1 {
 		parts = "part"
 	}
-	row("Prop", "%d %s, mass %s kg", len(sc.Prop.Parts), parts, num(mp.Mass))
+	s.row("Prop", "%d %s, mass %s kg", len(sc.Prop.Parts), parts, num(mp.Mass))
 	for _, pt := range sc.Prop.Parts {
 		if pt.Shape == physics.MeshShape && pt.Mesh != nil {
 			kind := "solid"
 			if pt.Wall > 0 {
 				kind = fmt.Sprintf("hollow, wall %s m", num(pt.Wall))
 			}
-			row("", "%s: mesh of %d triangles, %s", printable.String(partName(pt.Name)), len(pt.Mesh.T), kind)
+			s.row("", "%s: mesh of %d triangles, %s", printable.String(partName(pt.Name)), len(pt.Mesh.T), kind)
 		}
 	}
 	for _, n := range sc.Notes {
-		row("Note", "%s", printable.String(n))
+		s.row("Note", "%s", printable.String(n))
 	}
-	row("Centre of mass", "%s m, prop frame", vecText(mp.CM))
-	p("Principal moments (kg m^2) and axes (unit vectors in the prop frame):")
+	s.row("Centre of mass", "%s m, prop frame", vecText(mp.CM))
+	s.p("Principal moments (kg m^2) and axes (unit vectors in the prop frame):")
 	for i := range 3 {
-		p("  %-8s  I%d = %-10s axis %s", axisWords[i], i+1, num(mp.Moments[i]), vecText(mp.Axes[i]))
+		s.p("  %-8s  I%d = %-10s axis %s", axisWords[i], i+1, num(mp.Moments[i]), vecText(mp.Axes[i]))
 	}
 	tol := thr.SymmetryTol * 100
 	switch v.Symmetry {
 	case physics.Asymmetric:
-		row("Symmetry", "none: no two moments within %g %% of each other", tol)
+		s.row("Symmetry", "none: no two moments within %g %% of each other", tol)
 	case physics.Prolate:
-		row("Symmetry", "prolate (rod-like): I2 = I3 within %g %%; the least axis is the symmetry axis", tol)
+		s.row("Symmetry", "prolate (rod-like): I2 = I3 within %g %%; the least axis is the symmetry axis", tol)
 	case physics.Oblate:
-		row("Symmetry", "oblate (disc-like): I1 = I2 within %g %%; the greatest axis is the symmetry axis", tol)
+		s.row("Symmetry", "oblate (disc-like): I1 = I2 within %g %%; the greatest axis is the symmetry axis", tol)
 	case physics.Spherical:
-		row("Symmetry", "spherical: all three moments equal within %g %%", tol)
+		s.row("Symmetry", "spherical: all three moments equal within %g %%", tol)
 	}
-	spinTurns := th.Spin.Rate / (2 * math.Pi)
-	row("Throw", "released at %s m moving %s m/s,", vecText(th.Position), vecText(th.Velocity))
-	p(label+"spinning %s turns/s (%s rad/s, %s frames per turn)", "", num(spinTurns), num(th.Spin.Rate), framesPerTurn(spinTurns, rate))
-	p("")
+}
 
+// throw writes the release and the spin.
+func (s summaryWriter) throw(f *flight) {
+	th, rate := &f.scene.Throw, f.scene.Throw.FPS
+	spinTurns := th.Spin.Rate / (2 * math.Pi)
+	s.row("Throw", "released at %s m moving %s m/s,", vecText(th.Position), vecText(th.Velocity))
+	s.p(label+"spinning %s turns/s (%s rad/s, %s frames per turn)", "", num(spinTurns), num(th.Spin.Rate), framesPerTurn(spinTurns, rate))
+	s.p("")
+
+}
+
+// verdict writes the verdict, why, and its numbers: excursion, wobble,
+// flips and onset.
+func (s summaryWriter) verdict(f *flight) {
+	v, mp, thr := &f.verdict, &f.scene.Mass, f.scene.Thresholds
+	rate, take := f.scene.Throw.FPS, f.take
 	title, why := verdictText(v, mp, thr)
-	row("Verdict", "%s", title)
+	s.row("Verdict", "%s", title)
 	for _, line := range wrap(why, "  ", 80) {
-		p("%s", line)
+		s.p("%s", line)
 	}
 	if v.L > 0 {
 		switch {
 		case v.Symmetry == physics.Spherical:
 		case v.Symmetry == physics.Asymmetric:
-			sub("Excursion", "%.1f deg from the %s axis (a tumble at %g deg or more)", v.ExcursionDeg, axisWords[v.Circles], thr.TumbleDeg)
+			s.sub("Excursion", "%.1f deg from the %s axis (a tumble at %g deg or more)", v.ExcursionDeg, axisWords[v.Circles], thr.TumbleDeg)
 		default:
-			sub("Excursion", "%.2f deg between the angular momentum and the symmetry axis", v.ExcursionDeg)
-			sub("", "(a wobble from %g to %g deg)", thr.WobbleMinDeg, 90-thr.WobbleMinDeg)
+			s.sub("Excursion", "%.2f deg between the angular momentum and the symmetry axis", v.ExcursionDeg)
+			s.sub("", "(a wobble from %g to %g deg)", thr.WobbleMinDeg, 90-thr.WobbleMinDeg)
 		}
 	}
 	if v.HasRatio {
-		sub("Wobble", "%s wobbles per turn about the %s axis (spin : wobble = 1 : %s)", num(v.WobblesPerTurn), axisWords[v.Circles], num(v.WobblesPerTurn))
+		s.sub("Wobble", "%s wobbles per turn about the %s axis (spin : wobble = 1 : %s)", num(v.WobblesPerTurn), axisWords[v.Circles], num(v.WobblesPerTurn))
 		if v.HasWobble && v.WobblesPerEulerTurn > 0 {
-			sub("", "against the Euler-angle spin, the turn relative to the wobble: 1 : %s", num(v.WobblesPerEulerTurn))
+			s.sub("", "against the Euler-angle spin, the turn relative to the wobble: 1 : %s", num(v.WobblesPerEulerTurn))
 		}
 		if v.Symmetry == physics.Asymmetric {
-			sub("", "(mean rates over one polhode period: exact)")
+			s.sub("", "(mean rates over one polhode period: exact)")
 		}
 		period := 2 * math.Pi / v.PrecessionRate
-		sub("", "one wobble every %.3f s (%s frames)", period, num(period*rate.FPS()))
+		s.sub("", "one wobble every %.3f s (%s frames)", period, num(period*rate.FPS()))
 	}
 	if v.HasFlip {
 		if finite(v.FlipPeriod) {
-			sub("Flips", "every %.3f s (%s frames)", v.FlipPeriod, num(v.FlipPeriod*rate.FPS()))
+			s.sub("Flips", "every %.3f s (%s frames)", v.FlipPeriod, num(v.FlipPeriod*rate.FPS()))
 		} else {
-			sub("Flips", "unbounded time between flips: the spin is on the border between the two steady motions")
+			s.sub("Flips", "unbounded time between flips: the spin is on the border between the two steady motions")
 		}
 		if v.FirstFlipFound {
 			after := ""
 			if rate.FrameAtOrAfter(v.FirstFlip) > take.LandingFrame {
 				after = ", after landing"
 			}
-			sub("First flip", "%s%s", frameAt(rate, v.FirstFlip), after)
+			s.sub("First flip", "%s%s", frameAt(rate, v.FirstFlip), after)
 		}
 	}
 	if v.HasOnset {
 		if finite(v.Onset) {
-			sub("Onset", "the spin starts to leave the middle axis around %s", frameAt(rate, v.Onset))
+			s.sub("Onset", "the spin starts to leave the middle axis around %s", frameAt(rate, v.Onset))
 		} else {
-			sub("Onset", "never in theory: the spin is exactly on the middle axis (a real throw soon leaves it)")
+			s.sub("Onset", "never in theory: the spin is exactly on the middle axis (a real throw soon leaves it)")
 		}
 	}
-	p("")
-	row("Flight", "%d frames (0 to %d) at %s, %.3f s in the air", take.LandingFrame+1, take.LandingFrame, rateText(rate), take.FlightTime)
-	sub("Apex", "frame %d (%.3f s), the top of the centre-of-mass arc", take.ApexFrame, take.ApexTime)
-	sub("Landing", "frame %d, the last frame before the prop touches the ground at %.3f s", take.LandingFrame, take.FlightTime)
-	p("")
-	p("%s", Safety)
+	s.p("")
+}
+
+// flight writes the flight's frames, apex and landing.
+func (s summaryWriter) flight(f *flight) {
+	rate, take := f.scene.Throw.FPS, f.take
+	s.row("Flight", "%d frames (0 to %d) at %s, %.3f s in the air", take.LandingFrame+1, take.LandingFrame, rateText(rate), take.FlightTime)
+	s.sub("Apex", "frame %d (%.3f s), the top of the centre-of-mass arc", take.ApexFrame, take.ApexTime)
+	s.sub("Landing", "frame %d, the last frame before the prop touches the ground at %.3f s", take.LandingFrame, take.FlightTime)
 }
 
 // framesPerTurn formats fps / turns, or "no" for no spin.
