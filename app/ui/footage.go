@@ -106,11 +106,27 @@ const footageOwnRate = "the clip's own"
 func footageRateLabels() []string { return append([]string{footageOwnRate}, rateLabels()...) }
 
 // maxFootageOffset bounds the offset field's slider, frames; a typed value
-// may go to project.MaxFootageFrame.
+// may go to mark.MaxFrame.
 const maxFootageOffset = 500
 
+// newFootagePane builds the footage pane: the footage view beside the
+// take with its frame buttons, and the tab of loading, overlay, marks and
+// fit controls.
 func newFootagePane(w *Window) *footagePane {
 	p := &footagePane{w: w, takeFrame: -1}
+	p.buildView()
+	loadButtons, loadTyped := p.buildLoad()
+	p.buildOverlay()
+	p.buildFit()
+	p.content = p.layout(loadButtons, loadTyped)
+	p.side = p.buildSide()
+	p.setEnabled(false)
+	return p
+}
+
+// buildView makes the footage view; its mark edits are undoable steps.
+func (p *footagePane) buildView() {
+	w := p.w
 	p.view = widgets.NewFootageView()
 	p.view.OnMark = p.mark
 	p.view.OnMarkMoved = func(i int, x, y float64) {
@@ -123,7 +139,12 @@ func newFootagePane(w *Window) *footagePane {
 		p.edit(fmt.Sprintf("Delete the mark on footage frame %d", p.markFrame(i)), "", true, func(d *project.Document) error { return deleteMark(d, i) })
 	}
 	p.view.OnOtherKey = func(k *fyne.KeyEvent) { w.frameKey(k) }
+}
 
+// buildLoad makes the controls that load footage (the folder and GIF
+// buttons, and the typed path with its button, returned for the layout),
+// the status line and the footage rate picker.
+func (p *footagePane) buildLoad() (buttons, typed fyne.CanvasObject) {
 	p.path = widget.NewEntry()
 	p.path.SetPlaceHolder("a folder of numbered frames or a GIF")
 	p.path.OnSubmitted = func(s string) { p.load(s) }
@@ -138,8 +159,13 @@ func newFootagePane(w *Window) *footagePane {
 	p.custom.SetPlaceHolder("the clip's rate, such as 12.5 or 24000/1001, then Enter")
 	p.custom.OnSubmitted = p.typeRate
 	p.custom.Hide()
+	return container.NewHBox(load, gif), container.NewBorder(nil, nil, nil, loadTyped, p.path)
+}
 
-	fs := &p.fields
+// buildOverlay makes the release offset, the overlay switch and its
+// opacity.
+func (p *footagePane) buildOverlay() {
+	w, fs := p.w, &p.fields
 	p.offset = w.newField(fs, "release at footage frame", widgets.Frames, -maxFootageOffset, maxFootageOffset, func(v float64, final bool) {
 		n := int(math.Round(v))
 		p.edit("Change the footage frame of the release", "footage offset", final, func(d *project.Document) error {
@@ -174,7 +200,11 @@ func newFootagePane(w *Window) *footagePane {
 		})
 	})
 	p.fields.alignLabels()
+}
 
+// buildFit makes the marks count, the Fit and Apply buttons, the fit's
+// numbers and its problem line.
+func (p *footagePane) buildFit() {
 	p.marks = widget.NewLabel("")
 	p.marks.Wrapping = fyne.TextWrapWord
 	p.fitBtn = widget.NewButton("Fit", func() {
@@ -189,11 +219,14 @@ func newFootagePane(w *Window) *footagePane {
 	p.fitProblem.Wrapping = fyne.TextWrapWord
 	p.fitProblem.Importance = widget.WarningImportance
 	p.fitProblem.Hide()
+}
 
-	p.content = container.NewVBox(
+// layout returns the tab's content, the controls under their headings.
+func (p *footagePane) layout(loadButtons, loadTyped fyne.CanvasObject) *fyne.Container {
+	return container.NewVBox(
 		heading("Reference footage"),
-		container.NewHBox(load, gif),
-		container.NewBorder(nil, nil, nil, loadTyped, p.path),
+		loadButtons,
+		loadTyped,
 		p.status,
 		container.NewBorder(nil, nil, widget.NewLabel("footage rate"), widget.NewLabel("fps"), p.fps),
 		p.custom,
@@ -211,14 +244,16 @@ func newFootagePane(w *Window) *footagePane {
 		p.fitForm,
 		note("The fit takes gravity from the throw and the footage's frame rate, and assumes a still camera facing the flight plane. Apply to throw sets the release velocity and the spin rate; the spin axis stays."),
 	)
+}
 
+// buildSide returns the footage view with the previous and next frame
+// buttons and the frame readout under it.
+func (p *footagePane) buildSide() *fyne.Container {
 	prev := widget.NewButtonWithIcon("", theme.NavigateBackIcon(), func() { p.step(-1) })
 	next := widget.NewButtonWithIcon("", theme.NavigateNextIcon(), func() { p.step(1) })
 	p.frameLabel = widget.NewLabelWithStyle("", fyne.TextAlignLeading, fyne.TextStyle{Monospace: true})
 	p.frameLabel.Truncation = fyne.TextTruncateEllipsis
-	p.side = container.NewBorder(nil, container.NewBorder(nil, nil, container.NewHBox(prev, next), nil, p.frameLabel), nil, nil, p.view)
-	p.setEnabled(false)
-	return p
+	return container.NewBorder(nil, container.NewBorder(nil, nil, container.NewHBox(prev, next), nil, p.frameLabel), nil, nil, p.view)
 }
 
 // markFrame returns the footage frame of mark i of the document.
