@@ -78,14 +78,30 @@ var landAxisNames = []string{"least axis", "middle axis", "greatest axis"}
 // sampleChoices are the spread sizes on offer.
 var sampleChoices = []string{"200", "500", "1000", "2000", "5000"}
 
+// newLandPanel builds the Land it tab: the plan's target and solutions,
+// then the spread's release errors and figures, set to their defaults.
 func newLandPanel(w *Window) *landPanel {
 	p := &landPanel{w: w, seed: 1}
-	fs := &p.fields
-	changed := func(_ float64, final bool) {
-		if final {
-			p.request()
-		}
+	p.buildPlan()
+	newSeed := p.buildSpread()
+	p.setDefaults()
+	p.fields.alignLabels()
+	p.content = p.layout(newSeed)
+	return p
+}
+
+// changed is the fields' edit callback: a finished edit asks for new work.
+func (p *landPanel) changed(_ float64, final bool) {
+	if final {
+		p.request()
 	}
+}
+
+// buildPlan makes the plan's controls: the prop axis (or a part's long
+// axis), the direction, how the flight ends, tolerance and rate range,
+// the status line and the solutions list.
+func (p *landPanel) buildPlan() {
+	w, fs, changed := p.w, &p.fields, p.changed
 	p.axis = widget.NewSelect(landAxisNames, func(string) { p.request() })
 	p.parts = widget.NewList(func() int { return len(p.partNames) },
 		func() fyne.CanvasObject { return newLabel("part") },
@@ -133,14 +149,20 @@ func newLandPanel(w *Window) *landPanel {
 		p.solutions.UnselectAll()
 		p.use(i)
 	}
+}
 
+// buildSpread makes the spread's controls: the release errors, samples and
+// seed (its New seed button returned for the layout), the timing sheet
+// choice, progress, figures, the error histogram and the landing scatter.
+func (p *landPanel) buildSpread() (newSeed *widget.Button) {
+	w, fs, changed := p.w, &p.fields, p.changed
 	p.rateSD = w.newField(fs, "spin rate sd %", widgets.Plain, 0, 25, changed)
 	p.tiltSD = w.newField(fs, "spin direction sd", widgets.Angle, 0, 20, changed)
 	p.speedSD = w.newField(fs, "release speed sd %", widgets.Plain, 0, 20, changed)
 	p.angleSD = w.newField(fs, "release angle sd", widgets.Angle, 0, 15, changed)
 	p.samples = widget.NewSelect(sampleChoices, func(string) { p.request() })
 	p.seedLabel = widget.NewLabel("")
-	newSeed := widget.NewButton("New seed", func() {
+	newSeed = widget.NewButton("New seed", func() {
 		p.seed++
 		p.request()
 	})
@@ -154,10 +176,15 @@ func newLandPanel(w *Window) *landPanel {
 	p.hist.SetMinSize(fyne.NewSize(360, 110))
 	p.scatter = canvas.NewRaster(func(wd, ht int) image.Image { return scatterImage(p.landings(), wd, ht) })
 	p.scatter.SetMinSize(fyne.NewSize(360, 200))
+	return newSeed
+}
 
-	// Defaults: a flat landing of the greatest axis, caught at the release
-	// height, 10 degrees, 0.25 to 10 turns/s; release errors of a
-	// practised thrower (common practice, no source; measure your own).
+// setDefaults sets the controls without asking for work: a flat landing
+// of the greatest axis, caught at the release height, 10 degrees, 0.25 to
+// 10 turns/s; release errors of a practised thrower (common practice, no
+// source; measure your own).
+func (p *landPanel) setDefaults() {
+	w := p.w
 	w.syncing++
 	p.axis.SetSelected(landAxisNames[physics.Greatest])
 	p.dir.SetSelected(landUp)
@@ -172,9 +199,11 @@ func newLandPanel(w *Window) *landPanel {
 	p.angleSD.SetValue(2)
 	p.samples.SetSelected("1000")
 	w.syncing--
-	p.fields.alignLabels()
+}
 
-	p.content = container.NewVBox(
+// layout returns the tab's content, the controls under their headings.
+func (p *landPanel) layout(newSeed *widget.Button) *fyne.Container {
+	return container.NewVBox(
 		heading("Land it"),
 		note("The spin rates that land the prop as you want, each with its window: the rates around it that still land within tolerance. Only the rate changes; the release and the spin direction are the Throw tab's. Click a solution to use it (Undo takes it back)."),
 		container.NewBorder(nil, nil, widget.NewLabel("Prop axis"), nil, p.axis),
@@ -198,7 +227,6 @@ func newLandPanel(w *Window) *landPanel {
 		p.scatter,
 		p.onSheet,
 	)
-	return p
 }
 
 // setVisible is told when the tab opens or closes; opening it runs the
