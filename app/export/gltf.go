@@ -319,9 +319,9 @@ type gltfBuffer struct {
 	URI        string `json:"uri,omitempty"`
 }
 
-// buildGLTF lays out the binary buffer and the JSON that describes it.
+// buildGLTF lays out the binary buffer and the JSON that describes it:
+// the mesh's views, then the animation's.
 func buildGLTF(in Input, mesh wire.Mesh, keys []key) (*gltfDoc, []byte) {
-	var bin []byte
 	doc := &gltfDoc{
 		Asset:  gltfAsset{Version: "2.0", Generator: generatorString},
 		Scenes: []gltfScene{{Name: in.Name, Nodes: []int{0}}},
@@ -334,30 +334,62 @@ func buildGLTF(in Input, mesh wire.Mesh, keys []key) (*gltfDoc, []byte) {
 	// buffer.
 	nv, nt, n := len(mesh.Vertices), len(mesh.Triangles), len(keys)
 	pad4 := func(x int) int { return (x + 3) &^ 3 }
-	bin = make([]byte, 0, pad4(12*nv)+pad4(12*nv)+pad4(12*nt)+pad4(4*n)+pad4(12*n)+pad4(16*n)+pad4(12*n))
-	start := 0
-	begin := func() {
-		for len(bin)%4 != 0 {
-			bin = append(bin, 0)
-		}
-		start = len(bin)
-	}
-	end := func(target int) int {
-		doc.BufferViews = append(doc.BufferViews, gltfView{Buffer: 0, ByteOffset: start, ByteLength: len(bin) - start, Target: target})
-		return len(doc.BufferViews) - 1
-	}
-	accessor := func(a gltfAccessor) int {
-		doc.Accessors = append(doc.Accessors, a)
-		return len(doc.Accessors) - 1
-	}
-	le := binary.LittleEndian
-	f32 := func(b []byte, v float64) []byte { return le.AppendUint32(b, math.Float32bits(float32(v))) }
+	b := &bufferWriter{doc: doc, bin: make([]byte, 0, pad4(12*nv)+pad4(12*nv)+pad4(12*nt)+pad4(4*n)+pad4(12*n)+pad4(16*n)+pad4(12*n))}
+	b.mesh(mesh, in.Mass.CM)
+	b.animation(keys)
+	k0 := keys[0]
+	q0 := unitQuatFloat32(k0.q)
+	doc.Nodes = []gltfNode{{Name: nodeName(in.Name), Mesh: 0,
+		Translation: [3]float64{float64(float32(k0.p.X)), float64(float32(k0.p.Y)), float64(float32(k0.p.Z))},
+		Rotation:    [4]float64{q0.Imag, q0.Jmag, q0.Kmag, q0.Real}}}
+	doc.Buffers = []gltfBuffer{{ByteLength: len(b.bin)}}
+	return doc, b.bin
+}
 
-	// Vertices relative to the centre of mass, so the node's origin is the CM.
-	cm := in.Mass.CM
+// bufferWriter writes the views of the one binary buffer of doc, each
+// padded to 4 bytes and little-endian, and their accessors.
+type bufferWriter struct {
+	doc   *gltfDoc
+	bin   []byte
+	start int // where the view being written begins
+}
+
+// begin pads the buffer to 4 bytes and starts a view there.
+func (b *bufferWriter) begin() {
+	for len(b.bin)%4 != 0 {
+		b.bin = append(b.bin, 0)
+	}
+	b.start = len(b.bin)
+}
+
+// end closes the view begun last, for target (0 for none), and returns its
+// index.
+func (b *bufferWriter) end(target int) int {
+	b.doc.BufferViews = append(b.doc.BufferViews, gltfView{Buffer: 0, ByteOffset: b.start, ByteLength: len(b.bin) - b.start, Target: target})
+	return len(b.doc.BufferViews) - 1
+}
+
+// accessor adds a and returns its index.
+func (b *bufferWriter) accessor(a gltfAccessor) int {
+	b.doc.Accessors = append(b.doc.Accessors, a)
+	return len(b.doc.Accessors) - 1
+}
+
+// f32 appends each of vs as a single-precision float.
+func (b *bufferWriter) f32(vs ...float64) {
+	for _, v := range vs {
+		b.bin = binary.LittleEndian.AppendUint32(b.bin, math.Float32bits(float32(v)))
+	}
+}
+
+// mesh writes the positions (relative to the centre of mass cm, so that
+// the node's origin is the CM), the normals and the triangles' indices,
+// and the document's one mesh.
+func (b *bufferWriter) mesh(mesh wire.Mesh, cm r3.Vec) {
+	nv, nt := len(mesh.Vertices), len(mesh.Triangles)
 	lo := [3]float32{float32(math.Inf(1)), float32(math.Inf(1)), float32(math.Inf(1))}
 	hi := [3]float32{float32(math.Inf(-1)), float32(math.Inf(-1)), float32(math.Inf(-1))}
-	begin()
+	b.begin()
 	for _, v := range mesh.Vertices {
 		p := r3.Sub(v, cm)
 		c := [3]float32{float32(p.X), float32(p.Y), float32(p.Z)}
@@ -365,52 +397,56 @@ func buildGLTF(in Input, mesh wire.Mesh, keys []key) (*gltfDoc, []byte) {
 			lo[k] = min(lo[k], c[k])
 			hi[k] = max(hi[k], c[k])
 		}
-		bin = f32(f32(f32(bin, p.X), p.Y), p.Z)
+		b.f32(p.X, p.Y, p.Z)
 	}
-	aPos := accessor(gltfAccessor{BufferView: end(targetArray), ComponentType: compFloat, Count: nv, Type: "VEC3", Min: lo[:], Max: hi[:]})
-	begin()
+	aPos := b.accessor(gltfAccessor{BufferView: b.end(targetArray), ComponentType: compFloat, Count: nv, Type: "VEC3", Min: lo[:], Max: hi[:]})
+	b.begin()
 	for _, nr := range mesh.Normals {
 		u := unitFloat32(nr)
-		bin = f32(f32(f32(bin, u.X), u.Y), u.Z)
+		b.f32(u.X, u.Y, u.Z)
 	}
-	aNrm := accessor(gltfAccessor{BufferView: end(targetArray), ComponentType: compFloat, Count: nv, Type: "VEC3"})
-	begin()
+	aNrm := b.accessor(gltfAccessor{BufferView: b.end(targetArray), ComponentType: compFloat, Count: nv, Type: "VEC3"})
+	b.begin()
+	le := binary.LittleEndian
 	for _, t := range mesh.Triangles {
-		bin = le.AppendUint32(le.AppendUint32(le.AppendUint32(bin, t[0]), t[1]), t[2])
+		b.bin = le.AppendUint32(le.AppendUint32(le.AppendUint32(b.bin, t[0]), t[1]), t[2])
 	}
-	aIdx := accessor(gltfAccessor{BufferView: end(targetElements), ComponentType: compUint32, Count: 3 * nt, Type: "SCALAR"})
-	doc.Meshes = []gltfMesh{{Name: "prop", Primitives: []gltfPrimitive{{
+	aIdx := b.accessor(gltfAccessor{BufferView: b.end(targetElements), ComponentType: compUint32, Count: 3 * nt, Type: "SCALAR"})
+	b.doc.Meshes = []gltfMesh{{Name: "prop", Primitives: []gltfPrimitive{{
 		Attributes: map[string]int{"POSITION": aPos, "NORMAL": aNrm}, Indices: aIdx, Material: 0, Mode: modeTriangles}}}}
+}
 
-	// Animation: times, translations, rotations (x, y, z, w) and a scale
-	// of 1 on every key. The prop never scales, but a converter that keys
-	// the three channels together (assimp's COLLADA writer bakes them into
-	// one matrix per key and drops the animation when their key counts
-	// differ, reading a missing scale channel as one key) needs all three
-	// with the same keys.
-	begin()
+// animation writes the keys' times, translations, rotations (x, y, z, w)
+// and a scale of 1 on every key, and the animation that plays them. The
+// prop never scales, but a converter that keys the three channels
+// together (assimp's COLLADA writer bakes them into one matrix per key
+// and drops the animation when their key counts differ, reading a missing
+// scale channel as one key) needs all three with the same keys.
+func (b *bufferWriter) animation(keys []key) {
+	n := len(keys)
+	b.begin()
 	for _, k := range keys {
-		bin = f32(bin, k.t)
+		b.f32(k.t)
 	}
-	aT := accessor(gltfAccessor{BufferView: end(0), ComponentType: compFloat, Count: n, Type: "SCALAR",
+	aT := b.accessor(gltfAccessor{BufferView: b.end(0), ComponentType: compFloat, Count: n, Type: "SCALAR",
 		Min: []float32{float32(keys[0].t)}, Max: []float32{float32(keys[n-1].t)}})
-	begin()
+	b.begin()
 	for _, k := range keys {
-		bin = f32(f32(f32(bin, k.p.X), k.p.Y), k.p.Z)
+		b.f32(k.p.X, k.p.Y, k.p.Z)
 	}
-	aTr := accessor(gltfAccessor{BufferView: end(0), ComponentType: compFloat, Count: n, Type: "VEC3"})
-	begin()
+	aTr := b.accessor(gltfAccessor{BufferView: b.end(0), ComponentType: compFloat, Count: n, Type: "VEC3"})
+	b.begin()
 	for _, k := range keys {
 		q := unitQuatFloat32(k.q)
-		bin = f32(f32(f32(f32(bin, q.Imag), q.Jmag), q.Kmag), q.Real)
+		b.f32(q.Imag, q.Jmag, q.Kmag, q.Real)
 	}
-	aRo := accessor(gltfAccessor{BufferView: end(0), ComponentType: compFloat, Count: n, Type: "VEC4"})
-	begin()
+	aRo := b.accessor(gltfAccessor{BufferView: b.end(0), ComponentType: compFloat, Count: n, Type: "VEC4"})
+	b.begin()
 	for range keys {
-		bin = f32(f32(f32(bin, 1), 1), 1)
+		b.f32(1, 1, 1)
 	}
-	aSc := accessor(gltfAccessor{BufferView: end(0), ComponentType: compFloat, Count: n, Type: "VEC3"})
-	doc.Animations = []gltfAnimation{{Name: "throw",
+	aSc := b.accessor(gltfAccessor{BufferView: b.end(0), ComponentType: compFloat, Count: n, Type: "VEC3"})
+	b.doc.Animations = []gltfAnimation{{Name: "throw",
 		Channels: []gltfChannel{
 			{Sampler: 0, Target: gltfTarget{Node: 0, Path: "translation"}},
 			{Sampler: 1, Target: gltfTarget{Node: 0, Path: "rotation"}},
@@ -422,13 +458,6 @@ func buildGLTF(in Input, mesh wire.Mesh, keys []key) (*gltfDoc, []byte) {
 			{Input: aT, Output: aSc, Interpolation: "LINEAR"},
 		},
 	}}
-	k0 := keys[0]
-	q0 := unitQuatFloat32(k0.q)
-	doc.Nodes = []gltfNode{{Name: nodeName(in.Name), Mesh: 0,
-		Translation: [3]float64{float64(float32(k0.p.X)), float64(float32(k0.p.Y)), float64(float32(k0.p.Z))},
-		Rotation:    [4]float64{q0.Imag, q0.Jmag, q0.Kmag, q0.Real}}}
-	doc.Buffers = []gltfBuffer{{ByteLength: len(bin)}}
-	return doc, bin
 }
 
 func nodeName(s string) string {
