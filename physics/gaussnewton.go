@@ -154,16 +154,7 @@ func (st *stepper) newton(s *state, k *[gaussStages]state) (state, bool) {
 		norm = 1
 	}
 	sc := [7]float64{1 / norm, 1 / norm, 1 / norm, 1, 1, 1, 1}
-	var z [gaussStages]state
-	for i := range gaussStages {
-		for c := range 7 {
-			var v float64
-			for j := range gaussStages {
-				v += gaussA[i][j] * k[j][c]
-			}
-			z[i][c] = h * v
-		}
-	}
+	z := stageGuess(k, h)
 	m := &st.newtonMatrix
 	var J [gaussStages][7][7]float64
 	r.jacobian(s, &J[0])
@@ -176,30 +167,10 @@ func (st *stepper) newton(s *state, k *[gaussStages]state) (state, bool) {
 	prev := math.Inf(1)
 	ok := false
 	for range 40 {
-		var fz [gaussStages]state
-		for j := range gaussStages {
-			var y state
-			for c := range 7 {
-				y[c] = s[c] + z[j][c]
-			}
-			r.f(&y, &fz[j])
-		}
 		var x [gaussDim]float64
-		for i := range gaussStages {
-			for c := range 7 {
-				g := z[i][c] - h*(gaussA[i][0]*fz[0][c]+gaussA[i][1]*fz[1][c]+gaussA[i][2]*fz[2][c]+gaussA[i][3]*fz[3][c])
-				x[7*i+c] = -g * sc[c]
-			}
-		}
+		st.residual(s, &z, &sc, &x)
 		m.solve(&x)
-		var change float64
-		for i := range gaussStages {
-			for c := range 7 {
-				dz := x[7*i+c]
-				z[i][c] += dz / sc[c]
-				change = math.Max(change, math.Abs(dz))
-			}
-		}
+		change := addIncrement(&z, &x, &sc)
 		if !(change < math.Inf(1)) {
 			return *s, false
 		}
@@ -214,11 +185,10 @@ func (st *stepper) newton(s *state, k *[gaussStages]state) (state, bool) {
 			break // Newton proper does not converge either
 		}
 		if !full && change > 0.5*prev {
+			// Simplified Newton stalls: switch to Newton proper, with the
+			// Jacobian at every stage.
 			for j := range gaussStages {
-				var y state
-				for c := range 7 {
-					y[c] = s[c] + z[j][c]
-				}
+				y := stagePoint(s, &z, j)
 				r.jacobian(&y, &J[j])
 			}
 			if !m.build(h, &J, &sc) {
@@ -234,14 +204,68 @@ func (st *stepper) newton(s *state, k *[gaussStages]state) (state, bool) {
 	// y1 = y0 + h sum b_j f(Y_j); k keeps the stage derivatives.
 	next := *s
 	for j := range gaussStages {
-		var y state
-		for c := range 7 {
-			y[c] = s[c] + z[j][c]
-		}
+		y := stagePoint(s, &z, j)
 		r.f(&y, &k[j])
 	}
 	for c := range 7 {
 		next[c] += h * (gaussB[0]*k[0][c] + gaussB[1]*k[1][c] + gaussB[2]*k[2][c] + gaussB[3]*k[3][c])
 	}
 	return next, ok
+}
+
+// stageGuess returns the starting stage increments z_i = h sum_j a_ij k_j
+// from the stage derivatives k.
+func stageGuess(k *[gaussStages]state, h float64) [gaussStages]state {
+	var z [gaussStages]state
+	for i := range gaussStages {
+		for c := range 7 {
+			var v float64
+			for j := range gaussStages {
+				v += gaussA[i][j] * k[j][c]
+			}
+			z[i][c] = h * v
+		}
+	}
+	return z
+}
+
+// stagePoint returns the state at stage j, s + z_j.
+func stagePoint(s *state, z *[gaussStages]state, j int) state {
+	var y state
+	for c := range 7 {
+		y[c] = s[c] + z[j][c]
+	}
+	return y
+}
+
+// residual sets x to minus the stage equations' residual, g_i = z_i - h
+// sum_j a_ij f(s + z_j), scaled by sc: the right-hand side of a Newton
+// step.
+func (st *stepper) residual(s *state, z *[gaussStages]state, sc *[7]float64, x *[gaussDim]float64) {
+	h := st.h
+	var fz [gaussStages]state
+	for j := range gaussStages {
+		y := stagePoint(s, z, j)
+		st.rot.f(&y, &fz[j])
+	}
+	for i := range gaussStages {
+		for c := range 7 {
+			g := z[i][c] - h*(gaussA[i][0]*fz[0][c]+gaussA[i][1]*fz[1][c]+gaussA[i][2]*fz[2][c]+gaussA[i][3]*fz[3][c])
+			x[7*i+c] = -g * sc[c]
+		}
+	}
+}
+
+// addIncrement adds the solved Newton step x (scaled by sc) to z and
+// returns its largest scaled component.
+func addIncrement(z *[gaussStages]state, x *[gaussDim]float64, sc *[7]float64) float64 {
+	var change float64
+	for i := range gaussStages {
+		for c := range 7 {
+			dz := x[7*i+c]
+			z[i][c] += dz / sc[c]
+			change = math.Max(change, math.Abs(dz))
+		}
+	}
+	return change
 }
