@@ -188,6 +188,10 @@ func (r *rotor) step(s body, h float64) body {
 // Jacobian of Euler's equations, is moderate; beyond maxStiffPerStep, or
 // when the fixed-point iteration stalls short of round-off, by Newton
 // iteration (gaussnewton.go).
+//
+// It stays one function: the warm start, the fixed-point iteration and the
+// fall-back to Newton share the stage arrays of one step, and the fixed-point
+// loop is the hot path (a call a stage would cost).
 func (st *stepper) next(b body) body {
 	r, h := st.rot, st.h
 	s := flatten(b)

@@ -102,6 +102,10 @@ func (o *PNGOptions) Validate() error {
 // not nil, is called after each file with the files done and the total.
 // It returns the paths written, in frame order; on an error, the paths
 // written before it.
+//
+// It stays one function: the checks, the one framing of the whole take and
+// the frame loop with its progress, cancellation and partial file list share
+// their state, and the loop reads best whole.
 func WritePNGSequence(dir string, in Input, opt PNGOptions, progress func(done, total int)) ([]string, error) {
 	if err := opt.Validate(); err != nil {
 		return nil, err

@@ -123,6 +123,10 @@ func loadGIF(path string, r io.Reader, maxPix int, budget int64) (*gifFrames, in
 // recording every frame, as image/gif's decoder reads them: a Graphic
 // Control Extension's delay and transparency apply to the next image
 // only, its disposal method until the next such extension.
+//
+// It stays one function: one loop over the block types in the order the
+// specification lists them, each case a few lines, with the extension state
+// carried from block to block.
 func (g *gifFrames) index() error {
 	data := g.data
 	p := 13

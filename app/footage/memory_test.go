@@ -92,6 +92,8 @@ type memCase struct {
 
 var memPalette = color.Palette{color.RGBA{}, color.RGBA{200, 30, 30, 255}, color.RGBA{30, 200, 30, 255}}
 
+// memCases returns the footage sources the memory tests open. Long: a
+// table, one entry a source.
 func memCases() []memCase {
 	frames := func(order ...int) func(s *Sequence) error {
 		return func(s *Sequence) error {

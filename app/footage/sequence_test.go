@@ -85,6 +85,9 @@ func TestNaturalCompare(t *testing.T) {
 
 // TestOpen_Folder loads unpadded numbered PNGs and a JPEG among other
 // files, and checks the order, sizes, names, times and decoded pixels.
+//
+// Long: one folder holding every kind of file a folder of frames meets
+// (numbered PNGs, a JPEG, junk files), checked in one pass.
 func TestOpen_Folder(t *testing.T) {
 	dir := t.TempDir()
 	const w, h = 16, 12

@@ -293,6 +293,10 @@ func readGLTF(js []byte, load func(i int, uri *string) ([]byte, error)) ([][3]r3
 }
 
 // addMesh appends every triangle primitive of mesh mi, transformed by world.
+//
+// It stays one function: the primitive's checks (mode, attributes, accessor
+// types, index bounds) run in the order the specification states them, each
+// naming what it refuses, before the triangles are added.
 func (g *gltfReader) addMesh(mi int, world mat4) error {
 	d := &g.doc
 	if mi < 0 || mi >= len(d.Meshes) {

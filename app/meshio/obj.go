@@ -18,6 +18,9 @@ import (
 // triangles from its first corner. Every other line (o, g, s, usemtl,
 // mtllib, vt, vn, l, p, comments) carries nothing for mass and is skipped.
 // Common practice (the format's original documentation), from memory.
+//
+// It stays one function: one pass over the lines, one short case a statement,
+// with the positions read so far shared by the faces.
 func ReadOBJ(data []byte) ([][3]r3.Vec, error) {
 	if len(bytes.TrimSpace(data)) == 0 {
 		return nil, fmt.Errorf("the file is empty")

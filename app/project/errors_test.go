@@ -112,6 +112,7 @@ func TestParse_TopLevelErrors(t *testing.T) {
 	})
 }
 
+// Long: a table, one row a bad part field.
 func TestParse_PartErrors(t *testing.T) {
 	box := func(fields string) string {
 		return withParts(`{"shape": "box", ` + fields + `}`)

@@ -31,6 +31,7 @@ func sampleQuads() [][4][3]float64 {
 	}
 }
 
+// Long: a table, one entry a sample file.
 func sampleFiles() map[string][]byte {
 	q := sampleQuads()
 	var tris [][3][3]float64

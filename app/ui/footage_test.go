@@ -159,6 +159,9 @@ var markedFrames = []int{0, 4, 8, 12, 16, 20}
 // standard errors. The turn comes from a 30-pixel lever, an angle error of
 // about 0.8 degrees a mark, a slope error near 0.2 % of the 30 degrees a
 // frame: 1 % is five standard errors. (Measured: 0.1 % and 0.02 %.)
+//
+// Long: one user session from loading footage to applying the fit, step by
+// step, each step checking what the user sees.
 func TestFootage_MarkFitApply(t *testing.T) {
 	w := boardWindow(t)
 	clip := makeClip(t, filepath.Join(t.TempDir(), "clip"))

@@ -53,6 +53,10 @@ const MaxTriangles = 50_000_000
 //     flipped face): error
 //   - wound inward throughout (negative volume): turned outward, with a note
 //   - zero enclosed volume (a flat closed surface): error
+//
+// It stays one function, long as it is: the checks run in the order of the
+// special cases above over one welded vertex table and one edge list, and
+// splitting them would pass those tables around for nothing.
 func New(tris [][3]r3.Vec) (*Mesh, []string, error) {
 	if len(tris) == 0 {
 		return nil, nil, errors.New("no triangles")

@@ -134,6 +134,10 @@ const (
 // never fails: a prop whose mass properties cannot be computed is left out
 // and a Note label says why. It keeps no state and is safe to call from
 // several goroutines.
+//
+// It stays one function: the layers are drawn in back-to-front order (grid,
+// arc, ticks, onion skins, prop, axes, labels), each a short block over the
+// same framing, and the order is the point.
 func Draw(cam Camera, sc Scene) Drawing {
 	lens := cam.Lens()
 	w, h := lens.Size()
