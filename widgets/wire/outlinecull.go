@@ -49,6 +49,22 @@ func (o *Outline) buildPatches(v []r3.Vec, t [][3]int32) {
 	if nf == 0 {
 		return
 	}
+	pos, order := o.sortFaces(v, t)
+	np := (nf + patchFaces - 1) / patchFaces
+	o.patches = make([]patch, np)
+	for p := range o.patches {
+		o.boundPatch(p, v, t, order)
+	}
+	o.sortSmoothEdges(pos)
+}
+
+// sortFaces puts the faces in order: by the bin of their normal, so that
+// a thin wall's two sides never share a patch, then along the Morton
+// curve through their centroids. It rewrites o.normal, o.offset and o.tri
+// in that order and returns each face's place in it (pos) and the faces
+// in it (order).
+func (o *Outline) sortFaces(v []r3.Vec, t [][3]int32) (pos, order []int32) {
+	nf := len(o.normal)
 	lo := r3.Vec{X: math.Inf(1), Y: math.Inf(1), Z: math.Inf(1)}
 	hi := r3.Scale(-1, lo)
 	cent := make([]r3.Vec, nf)
@@ -65,8 +81,6 @@ func (o *Outline) buildPatches(v []r3.Vec, t [][3]int32) {
 	if !(span > 0) || math.IsInf(span, 0) {
 		span = 1
 	}
-	// Sort on the normal's bin first, so that a thin wall's two sides
-	// never share a patch, then along the Morton curve.
 	// One key a face: bin (7 bits), Morton code of the centroid on a
 	// 256-cell grid a side (24 bits), face index (32 bits).
 	keys := make([]uint64, nf)
@@ -76,8 +90,8 @@ func (o *Outline) buildPatches(v []r3.Vec, t [][3]int32) {
 		keys[f] = (normalBin(o.normal[f])<<24|morton(q(c.X), q(c.Y), q(c.Z)))<<32 | uint64(f)
 	}
 	slices.Sort(keys)
-	pos := make([]int32, nf) // face -> place in the new order
-	order := make([]int32, nf)
+	pos = make([]int32, nf) // face -> place in the new order
+	order = make([]int32, nf)
 	normal := make([][3]float64, nf)
 	offset := make([]float64, nf)
 	for i, k := range keys {
@@ -90,52 +104,61 @@ func (o *Outline) buildPatches(v []r3.Vec, t [][3]int32) {
 	for i, f := range order {
 		o.tri[i] = t[f]
 	}
+	return pos, order
+}
 
-	np := (nf + patchFaces - 1) / patchFaces
-	o.patches = make([]patch, np)
-	for p := range o.patches {
-		pa := &o.patches[p]
-		from, to := p*patchFaces, min((p+1)*patchFaces, nf)
-		var sum r3.Vec
-		blo := r3.Vec{X: math.Inf(1), Y: math.Inf(1), Z: math.Inf(1)}
-		bhi := r3.Scale(-1, blo)
-		for i := from; i < to; i++ {
-			n := normal[i]
-			sum = r3.Add(sum, r3.Vec{X: n[0], Y: n[1], Z: n[2]})
-			if n == ([3]float64{}) {
-				continue
-			}
-			for _, j := range t[order[i]] {
-				w := v[j]
-				blo = r3.Vec{X: math.Min(blo.X, w.X), Y: math.Min(blo.Y, w.Y), Z: math.Min(blo.Z, w.Z)}
-				bhi = r3.Vec{X: math.Max(bhi.X, w.X), Y: math.Max(bhi.Y, w.Y), Z: math.Max(bhi.Z, w.Z)}
-			}
-		}
-		pa.half = math.Pi // undecidable unless shown otherwise
-		l := r3.Norm(sum)
-		if !(l > 0) || math.IsInf(blo.X, 0) {
+// boundPatch sets the bounds of patch p (faces p*patchFaces on, in the
+// new order): the cone of its normals about their mean and the sphere
+// round its vertices. A patch with a degenerate face, or no normals to
+// average, gets a half angle of pi: its faces are tested one by one.
+func (o *Outline) boundPatch(p int, v []r3.Vec, t [][3]int32, order []int32) {
+	normal := o.normal
+	pa := &o.patches[p]
+	from, to := p*patchFaces, min((p+1)*patchFaces, len(normal))
+	var sum r3.Vec
+	blo := r3.Vec{X: math.Inf(1), Y: math.Inf(1), Z: math.Inf(1)}
+	bhi := r3.Scale(-1, blo)
+	for i := from; i < to; i++ {
+		n := normal[i]
+		sum = r3.Add(sum, r3.Vec{X: n[0], Y: n[1], Z: n[2]})
+		if n == ([3]float64{}) {
 			continue
 		}
-		pa.axis = r3.Scale(1/l, sum)
-		pa.half = 0
-		pa.centre = r3.Scale(0.5, r3.Add(blo, bhi))
-		for i := from; i < to; i++ {
-			n := normal[i]
-			if n == ([3]float64{}) {
-				pa.half = math.Pi // a degenerate face turns neither way: test each
-				break
-			}
-			pa.half = math.Max(pa.half, math.Acos(math.Min(1, n[0]*pa.axis.X+n[1]*pa.axis.Y+n[2]*pa.axis.Z)))
-			for _, j := range t[order[i]] {
-				pa.radius = math.Max(pa.radius, r3.Norm(r3.Sub(v[j], pa.centre)))
-			}
+		for _, j := range t[order[i]] {
+			w := v[j]
+			blo = r3.Vec{X: math.Min(blo.X, w.X), Y: math.Min(blo.Y, w.Y), Z: math.Min(blo.Z, w.Z)}
+			bhi = r3.Vec{X: math.Max(bhi.X, w.X), Y: math.Max(bhi.Y, w.Y), Z: math.Max(bhi.Z, w.Z)}
 		}
-		pa.half += cullMargin
-		pa.sinH, pa.cosH = math.Sincos(pa.half)
 	}
+	pa.half = math.Pi // undecidable unless shown otherwise
+	l := r3.Norm(sum)
+	if !(l > 0) || math.IsInf(blo.X, 0) {
+		return
+	}
+	pa.axis = r3.Scale(1/l, sum)
+	pa.half = 0
+	pa.centre = r3.Scale(0.5, r3.Add(blo, bhi))
+	for i := from; i < to; i++ {
+		n := normal[i]
+		if n == ([3]float64{}) {
+			pa.half = math.Pi // a degenerate face turns neither way: test each
+			break
+		}
+		pa.half = math.Max(pa.half, math.Acos(math.Min(1, n[0]*pa.axis.X+n[1]*pa.axis.Y+n[2]*pa.axis.Z)))
+		for _, j := range t[order[i]] {
+			pa.radius = math.Max(pa.radius, r3.Norm(r3.Sub(v[j], pa.centre)))
+		}
+	}
+	pa.half += cullMargin
+	pa.sinH, pa.cosH = math.Sincos(pa.half)
+}
 
-	// Smooth edges: renumber their faces, then inner edges grouped by
-	// patch, border edges apart.
+// sortSmoothEdges renumbers the smooth edges' faces by pos, then lays
+// the edges out for Contour's one sweep: each patch's inner edges (both
+// faces in it), then the border edges in runs by the pair of patches they
+// join.
+func (o *Outline) sortSmoothEdges(pos []int32) {
+	np := len(o.patches)
 	counts := make([]int32, np+1)
 	for i := range o.sides {
 		s := &o.sides[i]
