@@ -82,21 +82,35 @@ func NewOutline(v []r3.Vec, t [][3]int32, angle float64) *Outline {
 		angle = CreaseAngle
 	}
 	o := &Outline{vec: v}
+	o.faceNormals(t)
+	start, halves := bucketEdges(t, int32(len(v)))
+	o.matchEdges(start, halves, math.Cos(angle))
+	o.buildChains(len(v))
+	o.buildPatches(v, t)
+	o.extreme = extremes(v)
+	return o
+}
+
+// goodTri reports whether tr indexes three different vertices of nv.
+func goodTri(tr [3]int32, nv int32) bool {
+	for _, i := range tr {
+		if i < 0 || i >= nv {
+			return false
+		}
+	}
+	return tr[0] != tr[1] && tr[1] != tr[2] && tr[2] != tr[0]
+}
+
+// faceNormals sets the unit normal and plane offset of every face; bad
+// triangles (goodTri, or no area) get a zero normal and take no part in
+// the edges.
+func (o *Outline) faceNormals(t [][3]int32) {
+	v := o.vec
 	nv := int32(len(v))
-	// Face normals and plane offsets; bad triangles get a zero normal and
-	// take no part in the edges.
 	o.normal = make([][3]float64, len(t))
 	o.offset = make([]float64, len(t))
-	good := func(tr [3]int32) bool {
-		for _, i := range tr {
-			if i < 0 || i >= nv {
-				return false
-			}
-		}
-		return tr[0] != tr[1] && tr[1] != tr[2] && tr[2] != tr[0]
-	}
 	for f, tr := range t {
-		if !good(tr) {
+		if !goodTri(tr, nv) {
 			continue
 		}
 		a, b, c := v[tr[0]], v[tr[1]], v[tr[2]]
@@ -109,12 +123,19 @@ func NewOutline(v []r3.Vec, t [][3]int32, angle float64) *Outline {
 		o.normal[f] = [3]float64{n.X, n.Y, n.Z}
 		o.offset[f] = r3.Dot(n, a)
 	}
+}
 
-	// Bucket every edge on its lower vertex (counting sort), then match the
-	// few edges in each bucket by their upper vertex.
-	start := make([]int32, nv+1)
+// halfEdge is a face's edge, filed under its lower vertex: the upper
+// vertex and the face.
+type halfEdge struct{ hi, face int32 }
+
+// bucketEdges files every edge of the good triangles under its lower
+// vertex (a counting sort): the edges of vertex i are halves[start[i]:
+// start[i+1]].
+func bucketEdges(t [][3]int32, nv int32) (start []int32, halves []halfEdge) {
+	start = make([]int32, nv+1)
 	for _, tr := range t {
-		if !good(tr) {
+		if !goodTri(tr, nv) {
 			continue
 		}
 		for k := range 3 {
@@ -124,23 +145,29 @@ func NewOutline(v []r3.Vec, t [][3]int32, angle float64) *Outline {
 	for i := range nv {
 		start[i+1] += start[i]
 	}
-	type half struct{ hi, face int32 }
-	halves := make([]half, start[nv])
+	halves = make([]halfEdge, start[nv])
 	fill := append([]int32(nil), start[:nv]...)
 	for f, tr := range t {
-		if !good(tr) {
+		if !goodTri(tr, nv) {
 			continue
 		}
 		for k := range 3 {
 			a, b := tr[k], tr[(k+1)%3]
 			lo, hi := min(a, b), max(a, b)
-			halves[fill[lo]] = half{hi, int32(f)}
+			halves[fill[lo]] = halfEdge{hi, int32(f)}
 			fill[lo]++
 		}
 	}
-	cosMax := math.Cos(angle)
+	return start, halves
+}
+
+// matchEdges matches the few edges in each bucket by their upper vertex:
+// an edge of two faces whose normals meet at a cosine of cosMax or more is
+// smooth (o.smooth, its faces in o.sides), any other a crease (an open or
+// non-manifold edge too).
+func (o *Outline) matchEdges(start []int32, halves []halfEdge, cosMax float64) {
 	var faces []int32
-	for lo := range nv {
+	for lo := range int32(len(start) - 1) {
 		bucket := halves[start[lo]:start[lo+1]]
 		for i := range bucket {
 			if bucket[i].hi < 0 {
@@ -168,10 +195,6 @@ func NewOutline(v []r3.Vec, t [][3]int32, angle float64) *Outline {
 			o.sides = append(o.sides, [2]int32{faces[0], faces[1]})
 		}
 	}
-	o.buildChains(len(v))
-	o.buildPatches(v, t)
-	o.extreme = extremes(v)
-	return o
 }
 
 // extremes returns the vertices farthest along outlineDirections
