@@ -29,8 +29,21 @@ func Surface(v []r3.Vec, t [][3]int32, angle float64) Mesh {
 	}
 	cosMax := math.Cos(angle)
 	nv := int32(len(v))
-	unit := make([]r3.Vec, len(t))
-	good := make([]bool, len(t))
+	unit, good := faceUnits(v, t)
+	start, round := facesRound(t, good, nv)
+	out, first := splitCorners(v, t, unit, good, start, round, cosMax)
+	for _, e := range NewOutline(v, t, angle).Creases() {
+		out.Edges = append(out.Edges, [2]uint32{uint32(first[e[0]]), uint32(first[e[1]])})
+	}
+	return out
+}
+
+// faceUnits returns each face's unit normal and whether the face is good:
+// it indexes inside v and has an area.
+func faceUnits(v []r3.Vec, t [][3]int32) (unit []r3.Vec, good []bool) {
+	nv := int32(len(v))
+	unit = make([]r3.Vec, len(t))
+	good = make([]bool, len(t))
 	for f, tr := range t {
 		if tr[0] < 0 || tr[1] < 0 || tr[2] < 0 || tr[0] >= nv || tr[1] >= nv || tr[2] >= nv {
 			continue
@@ -43,8 +56,13 @@ func Surface(v []r3.Vec, t [][3]int32, angle float64) Mesh {
 		}
 		unit[f], good[f] = r3.Scale(1/l, n), true
 	}
-	// Faces round each vertex (counting sort on the vertex).
-	start := make([]int32, nv+1)
+	return unit, good
+}
+
+// facesRound returns the good faces round each vertex, by a counting sort
+// on the vertex: those of vertex i are round[start[i]:start[i+1]].
+func facesRound(t [][3]int32, good []bool, nv int32) (start, round []int32) {
+	start = make([]int32, nv+1)
 	for f, tr := range t {
 		if good[f] {
 			for _, i := range tr {
@@ -55,7 +73,7 @@ func Surface(v []r3.Vec, t [][3]int32, angle float64) Mesh {
 	for i := range nv {
 		start[i+1] += start[i]
 	}
-	round := make([]int32, start[nv])
+	round = make([]int32, start[nv])
 	fill := append([]int32(nil), start[:nv]...)
 	for f, tr := range t {
 		if good[f] {
@@ -65,9 +83,17 @@ func Surface(v []r3.Vec, t [][3]int32, angle float64) Mesh {
 			}
 		}
 	}
+	return start, round
+}
 
-	var out Mesh
-	first := make([]int32, nv) // first output copy of each vertex, -1 for none
+// splitCorners gives every vertex one output copy for each different
+// corner normal round it (the angle-weighted mean of the face normals
+// within the crease angle of the corner's face, cosine cosMax), and the
+// good triangles on those copies. first is the first copy of each input
+// vertex, -1 for none.
+func splitCorners(v []r3.Vec, t [][3]int32, unit []r3.Vec, good []bool, start, round []int32, cosMax float64) (out Mesh, first []int32) {
+	nv := int32(len(v))
+	first = make([]int32, nv) // first output copy of each vertex, -1 for none
 	for i := range first {
 		first[i] = -1
 	}
@@ -127,10 +153,7 @@ func Surface(v []r3.Vec, t [][3]int32, angle float64) Mesh {
 			out.Triangles = append(out.Triangles, [3]uint32{corner[3*f], corner[3*f+1], corner[3*f+2]})
 		}
 	}
-	for _, e := range NewOutline(v, t, angle).Creases() {
-		out.Edges = append(out.Edges, [2]uint32{uint32(first[e[0]]), uint32(first[e[1]])})
-	}
-	return out
+	return out, first
 }
 
 // cornerAngle returns the angle of triangle tr at its vertex i, radians.
