@@ -64,12 +64,45 @@ func (w *Window) restorePrefs() {
 	if n := prefs.IntWithFallback(prefOnion, 2); n >= 0 && n <= maxOnion {
 		w.view.onion.SetSelected(onionLabel(n))
 	}
-	choice := prefs.StringWithFallback(prefTheme, themeSystem)
-	if choice == themeLight || choice == themeDark {
-		w.setTheme(choice)
-	} else {
-		w.markTheme(themeSystem) // the app's own theme stays
+	// The theme itself was applied before the window was built
+	// (applySavedTheme); here the View menu learns which one it is.
+	w.markTheme(savedTheme(w.app))
+}
+
+// savedTheme returns the theme choice kept in the preferences (the
+// system's when none or an unknown one is kept).
+func savedTheme(a fyne.App) string {
+	switch c := a.Preferences().StringWithFallback(prefTheme, themeSystem); c {
+	case themeLight, themeDark:
+		return c
 	}
+	return themeSystem
+}
+
+// applySavedTheme sets the app's theme to the saved choice. It runs
+// before the window's widgets are made: widgets measured under one theme
+// and shown under another keep some of the first theme's colours (dark
+// fields on a light window), so the theme must be in place first. The
+// system choice leaves the app's theme as it is.
+func applySavedTheme(a fyne.App) {
+	if c := savedTheme(a); c != themeSystem {
+		applyTheme(a, c)
+	}
+}
+
+// applyTheme sets the app's theme for a choice (an unknown one is the
+// system's) and returns the choice applied.
+func applyTheme(a fyne.App, choice string) string {
+	switch choice {
+	case themeLight:
+		a.Settings().SetTheme(variantTheme{theme.DefaultTheme(), theme.VariantLight})
+	case themeDark:
+		a.Settings().SetTheme(variantTheme{theme.DefaultTheme(), theme.VariantDark})
+	default:
+		choice = themeSystem
+		a.Settings().SetTheme(theme.DefaultTheme())
+	}
+	return choice
 }
 
 var _ fyne.Theme = variantTheme{}
@@ -88,15 +121,7 @@ func (t variantTheme) Color(n fyne.ThemeColorName, _ fyne.ThemeVariant) color.Co
 // setTheme applies a theme choice (an unknown one is the system's), ticks
 // it in the View menu and saves it.
 func (w *Window) setTheme(choice string) {
-	switch choice {
-	case themeLight:
-		w.app.Settings().SetTheme(variantTheme{theme.DefaultTheme(), theme.VariantLight})
-	case themeDark:
-		w.app.Settings().SetTheme(variantTheme{theme.DefaultTheme(), theme.VariantDark})
-	default:
-		choice = themeSystem
-		w.app.Settings().SetTheme(theme.DefaultTheme())
-	}
+	choice = applyTheme(w.app, choice)
 	w.app.Preferences().SetString(prefTheme, choice)
 	w.markTheme(choice)
 }

@@ -1,12 +1,15 @@
 package ui
 
 import (
+	"image/color"
 	"os"
 	"path/filepath"
 	"slices"
 	"testing"
 
+	"fyne.io/fyne/v2"
 	"fyne.io/fyne/v2/test"
+	"fyne.io/fyne/v2/theme"
 
 	"propflight/widgets/wire"
 )
@@ -67,4 +70,42 @@ func TestPrefs_MigrateOldRecentFile(t *testing.T) {
 	if r := loadRecent(a); !slices.Equal(r.Files, []string{"/a/pan.json", "/b/plate.json"}) {
 		t.Errorf("read the old file twice: %v", r.Files)
 	}
+}
+
+// TestPrefs_SavedThemeBeforeWidgets: a theme kept in the preferences is
+// in place before the window and its widgets are made. The desktop driver
+// listens for theme changes only once its loop runs, so a theme set after
+// the widgets were built (and measured) but before the loop starts leaves
+// them in the old theme's colours: dark fields and pale text on a light
+// window. The test driver refreshes at once, so the order is what is
+// checked here.
+func TestPrefs_SavedThemeBeforeWidgets(t *testing.T) {
+	t.Setenv("XDG_CONFIG_HOME", t.TempDir())
+	a := &windowWatcher{App: test.NewTempApp(t)}
+	a.Preferences().SetString(prefTheme, themeLight)
+	doc, _ := presetDocument("frying-pan")
+	w, err := newWindow(a, doc, "", true)
+	if err != nil {
+		t.Fatal(err)
+	}
+	t.Cleanup(func() { w.closed = true; w.win.Close() })
+	want := theme.DefaultTheme().Color(theme.ColorNameBackground, theme.VariantLight)
+	if a.background != want {
+		t.Errorf("the theme's background when the window was made is %v, want the light theme's %v", a.background, want)
+	}
+	if !w.menu.themes[themeLight].Checked {
+		t.Error("the View menu does not tick the light theme")
+	}
+}
+
+// windowWatcher is an app that notes the theme's background colour at
+// the moment a window is made.
+type windowWatcher struct {
+	fyne.App
+	background color.Color
+}
+
+func (a *windowWatcher) NewWindow(title string) fyne.Window {
+	a.background = a.Settings().Theme().Color(theme.ColorNameBackground, a.Settings().ThemeVariant())
+	return a.App.NewWindow(title)
 }

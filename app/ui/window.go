@@ -190,6 +190,7 @@ func newWindowWith(a fyne.App, doc *project.Document, path string, opt windowOpt
 		})
 	}
 	w.recent = loadRecent(a)
+	applySavedTheme(a)
 	w.win = a.NewWindow("Propflight")
 	w.build()
 	w.win.Resize(fyne.NewSize(1560, 960))
