@@ -3,7 +3,6 @@ package physics
 import (
 	"math"
 
-	"gonum.org/v1/gonum/num/quat"
 	"gonum.org/v1/gonum/spatial/r3"
 )
 
@@ -30,7 +29,7 @@ func (tg Target) Validate() error {
 // Error returns the angle in radians, in [0, pi], between the target axis
 // turned into the world by the prop orientation q (prop frame -> world) and
 // the target direction.
-func (tg Target) Error(q quat.Number) float64 {
+func (tg Target) Error(q Rotation) float64 {
 	a := Rotate(q, r3.Unit(tg.Axis))
 	d := r3.Unit(tg.Dir)
 	return math.Atan2(r3.Norm(r3.Cross(a, d)), r3.Dot(a, d))

@@ -61,7 +61,7 @@ func TestSpreadDirections_NoGap(t *testing.T) {
 func mapProps(t *testing.T) map[string]MassProps {
 	brick := Prop{Parts: []Part{box(2, 0.2, 0.1, 0.05)}}
 	brick.Parts[0].Orient = EulerXYZ(0.3, -0.5, 0.8)
-	disc := Prop{Parts: []Part{{Shape: Cylinder, Radius: 0.135, Length: 0.01, Mass: 0.5, Orient: Identity()}}}
+	disc := Prop{Parts: []Part{{Shape: Cylinder, Radius: 0.135, Length: 0.01, Mass: 0.5, Orient: IdentityRotation()}}}
 	pin := Prop{Parts: []Part{{Shape: Cylinder, Radius: 0.03, Length: 0.45, Mass: 1, Orient: EulerXYZ(0, 0.4, 0)}}}
 	return map[string]MassProps{"brick": mustMass(t, &brick), "disc": mustMass(t, &disc), "pin": mustMass(t, &pin)}
 }

@@ -25,9 +25,10 @@
 //     file's origin and axes instead (Part.Center gives its centre of mass).
 //   - Principal frame: the prop's principal axes at its centre of mass, sorted
 //     so that I1 <= I2 <= I3 (least, middle, greatest axis).
-//   - Orientation quaternions (gonum quat.Number, fields Real, Imag, Jmag, Kmag
-//     = w, x, y, z) are unit quaternions that map a vector of the inner frame
-//     into the outer one: v_outer = q (0, v_inner) q*.
+//   - Orientations are [Rotation]s: unit quaternions (gonum quat.Number,
+//     fields Real, Imag, Jmag, Kmag = w, x, y, z) that map a vector of the
+//     inner frame into the outer one: v_outer = q (0, v_inner) q*
+//     (rotation.go holds the convention and its helpers).
 //
 // Inertia tensors use the physics sign convention I_ij = sum m (r^2 delta_ij -
 // x_i x_j) (Goldstein, Classical Mechanics 3rd ed., §5.3).

@@ -14,7 +14,7 @@ import (
 func ExampleProp_MassProps() {
 	board := physics.Prop{Parts: []physics.Part{{
 		Name: "board", Shape: physics.Box, Size: r3.Vec{X: 0.4, Y: 0.25, Z: 0.02},
-		Mass: 1.5, Orient: physics.Identity(),
+		Mass: 1.5, Orient: physics.IdentityRotation(),
 	}}}
 	mp, err := board.MassProps()
 	if err != nil {
@@ -31,7 +31,7 @@ func ExampleProp_MassProps() {
 // A board spun about its middle axis, 2 degrees off, tumbles.
 func ExampleJudge() {
 	board := physics.Prop{Parts: []physics.Part{{
-		Shape: physics.Box, Size: r3.Vec{X: 0.4, Y: 0.25, Z: 0.02}, Mass: 1.5, Orient: physics.Identity(),
+		Shape: physics.Box, Size: r3.Vec{X: 0.4, Y: 0.25, Z: 0.02}, Mass: 1.5, Orient: physics.IdentityRotation(),
 	}}}
 	mp, _ := board.MassProps()
 	th := physics.DefaultThrow()
@@ -58,7 +58,7 @@ func ExampleJudge_wobblesPerTurn() {
 // spin directions that give each motion.
 func ExampleMapDirections() {
 	brick := physics.Prop{Parts: []physics.Part{{
-		Shape: physics.Box, Size: r3.Vec{X: 0.2, Y: 0.1, Z: 0.05}, Mass: 2, Orient: physics.Identity(),
+		Shape: physics.Box, Size: r3.Vec{X: 0.2, Y: 0.1, Z: 0.05}, Mass: 2, Orient: physics.IdentityRotation(),
 	}}}
 	mp, _ := brick.MassProps()
 	am := physics.MapDirections(&mp, physics.DefaultThresholds(), 2000)

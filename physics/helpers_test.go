@@ -47,7 +47,7 @@ func checkMat(t *testing.T, what string, got, want Mat3, tol float64) {
 func vecClose(a, b r3.Vec, tol float64) bool { return r3.Norm(r3.Sub(a, b)) <= tol }
 
 func box(mass, x, y, z float64) Part {
-	return Part{Name: "box", Shape: Box, Size: r3.Vec{X: x, Y: y, Z: z}, Mass: mass, Orient: Identity()}
+	return Part{Name: "box", Shape: Box, Size: r3.Vec{X: x, Y: y, Z: z}, Mass: mass, Orient: IdentityRotation()}
 }
 
 func mustMass(t testing.TB, p *Prop) MassProps {

@@ -50,7 +50,7 @@ func TestMeshPart_EqualsBox(t *testing.T) {
 		mp := Part{Shape: MeshShape, Mesh: boxMesh(t, size, fileCentre), Density: 700, Position: pos, Orient: q}
 		bp := Part{Shape: Box, Size: size, Density: 700, Position: r3.Add(pos, Rotate(q, fileCentre)), Orient: q}
 		// A second, plain part so the parallel-axis shift matters.
-		other := Part{Shape: Sphere, Radius: 0.05, Mass: 0.4, Position: r3.Vec{X: 0.5}, Orient: Identity()}
+		other := Part{Shape: Sphere, Radius: 0.05, Mass: 0.4, Position: r3.Vec{X: 0.5}, Orient: IdentityRotation()}
 		got := mustMass(t, &Prop{Parts: []Part{mp, other}})
 		want := mustMass(t, &Prop{Parts: []Part{bp, other}})
 		checkRel(t, "mass", got.Mass, want.Mass, 1e-12)
@@ -73,7 +73,7 @@ func TestMeshPart_EqualsBox(t *testing.T) {
 // t weighs rho 6a² t and has (5/18) m a² about its centre (REFERENCES.md §9).
 func TestMeshPart_ThinWall(t *testing.T) {
 	const a, rho, wall = 0.2, 2700, 0.001
-	p := Part{Shape: MeshShape, Mesh: boxMesh(t, r3.Vec{X: a, Y: a, Z: a}, r3.Vec{Z: 1}), Density: rho, Wall: wall, Orient: Identity()}
+	p := Part{Shape: MeshShape, Mesh: boxMesh(t, r3.Vec{X: a, Y: a, Z: a}, r3.Vec{Z: 1}), Density: rho, Wall: wall, Orient: IdentityRotation()}
 	mp := mustMass(t, &Prop{Parts: []Part{p}})
 	m := rho * 6 * a * a * wall
 	checkRel(t, "mass", mp.Mass, m, 1e-12)
@@ -115,17 +115,17 @@ func TestMeshPart_Validate(t *testing.T) {
 		part  Part
 		field string
 	}{
-		{Part{Shape: MeshShape, Mass: 1, Orient: Identity()}, "file"},
-		{Part{Shape: MeshShape, Mesh: m, Mass: 1, Wall: -0.001, Orient: Identity()}, "wall_m"},
-		{Part{Shape: MeshShape, Mesh: m, Mass: 1, Wall: math.NaN(), Orient: Identity()}, "wall_m"},
-		{Part{Shape: MeshShape, Mesh: m, Orient: Identity()}, "mass"},
+		{Part{Shape: MeshShape, Mass: 1, Orient: IdentityRotation()}, "file"},
+		{Part{Shape: MeshShape, Mesh: m, Mass: 1, Wall: -0.001, Orient: IdentityRotation()}, "wall_m"},
+		{Part{Shape: MeshShape, Mesh: m, Mass: 1, Wall: math.NaN(), Orient: IdentityRotation()}, "wall_m"},
+		{Part{Shape: MeshShape, Mesh: m, Orient: IdentityRotation()}, "mass"},
 	} {
 		fe, ok := c.part.Validate().(*FieldError)
 		if !ok || fe.Field != c.field {
 			t.Errorf("got %v, want an error on %q", c.part.Validate(), c.field)
 		}
 	}
-	if err := (&Part{Shape: MeshShape, Mesh: m, Density: 1000, Wall: 0.002, Orient: Identity()}).Validate(); err != nil {
+	if err := (&Part{Shape: MeshShape, Mesh: m, Density: 1000, Wall: 0.002, Orient: IdentityRotation()}).Validate(); err != nil {
 		t.Errorf("thin wall with density: %v", err)
 	}
 }

@@ -85,7 +85,7 @@ type Part struct {
 	Density float64
 
 	Position r3.Vec
-	Orient   quat.Number
+	Orient   Rotation
 }
 
 // FieldError is a problem with one named field of user input. Field is the
@@ -297,7 +297,7 @@ func (p *Part) Center() r3.Vec {
 	if p.Shape != MeshShape {
 		return p.Position
 	}
-	return r3.Add(p.Position, Rotate(Normalize(p.Orient), p.localCenter()))
+	return r3.Add(p.Position, Rotate(NormalizeRotation(p.Orient), p.localCenter()))
 }
 
 // LocalSupport returns max over the part's points p (own frame) of p . u, the

@@ -15,7 +15,7 @@ import (
 // theorem from the table's apex value). Expected numbers are the table
 // formulas evaluated by hand as printed in REFERENCES.md §1.2.
 func TestLocalInertia_Handbook(t *testing.T) {
-	id := Identity()
+	id := IdentityRotation()
 	tests := []struct {
 		name        string
 		part        Part
@@ -62,7 +62,7 @@ func TestLocalInertia_Handbook(t *testing.T) {
 // its apex, 3mr^2/20 + 3mh^2/5 (Wikipedia list; mathmos.net table), moving
 // our centre-of-mass tensor to the apex, 3h/4 from the centre.
 func TestLocalInertia_ConeApex(t *testing.T) {
-	c := Part{Shape: Cone, Radius: 0.1, Height: 0.3, Mass: 1, Orient: Identity()}
+	c := Part{Shape: Cone, Radius: 0.1, Height: 0.3, Mass: 1, Orient: IdentityRotation()}
 	apex := c.LocalInertia().Shifted(1, r3.Vec{Z: 0.75 * 0.3})
 	checkRel(t, "I_apex transverse", apex[0][0], 3*0.01/20+3*0.09/5, closeTol)
 	checkRel(t, "I_apex transverse (REFERENCES.md 0.0555)", apex[1][1], 0.0555, closeTol)
@@ -71,7 +71,7 @@ func TestLocalInertia_ConeApex(t *testing.T) {
 // TestVolume checks the volume formulas (CRC Standard Mathematical Tables,
 // "Volumes of solids") through density * volume = mass.
 func TestVolume(t *testing.T) {
-	id := Identity()
+	id := IdentityRotation()
 	tests := []struct {
 		part Part
 		want float64
@@ -137,7 +137,7 @@ func samplePoints(p *Part, n int) []r3.Vec {
 // maximum over a dense sample of its boundary (a slow, obvious oracle). The
 // sample can only fall short, by at most the sampling error.
 func TestLocalSupport_Oracle(t *testing.T) {
-	id := Identity()
+	id := IdentityRotation()
 	parts := []Part{
 		box(1, 0.3, 0.2, 0.1),
 		{Shape: Cylinder, Radius: 0.1, Length: 0.4, Mass: 1, Orient: id},
@@ -166,7 +166,7 @@ func TestLocalSupport_Oracle(t *testing.T) {
 }
 
 func TestPartValidate_Errors(t *testing.T) {
-	id := Identity()
+	id := IdentityRotation()
 	tests := []struct {
 		part  Part
 		field string
@@ -194,7 +194,7 @@ func TestPartValidate_Errors(t *testing.T) {
 // TestReach_BoundsSupport: no direction's support exceeds Reach, and the
 // sampled boundary comes within the sampling error of it.
 func TestReach_BoundsSupport(t *testing.T) {
-	id := Identity()
+	id := IdentityRotation()
 	parts := []Part{
 		box(1, 0.3, 0.2, 0.1),
 		{Shape: Cylinder, Radius: 0.1, Length: 0.4, Mass: 1, Orient: id},

@@ -16,7 +16,7 @@ import (
 // 1.2) turns per second for a 10 degree tolerance.
 func ExamplePlanLanding() {
 	board := physics.Prop{Parts: []physics.Part{{
-		Shape: physics.Box, Size: r3.Vec{X: 0.4, Y: 0.25, Z: 0.02}, Mass: 1.5, Orient: physics.Identity(),
+		Shape: physics.Box, Size: r3.Vec{X: 0.4, Y: 0.25, Z: 0.02}, Mass: 1.5, Orient: physics.IdentityRotation(),
 	}}}
 	mp, _ := board.MassProps()
 	th := physics.DefaultThrow()

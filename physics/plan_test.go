@@ -47,7 +47,7 @@ func oracleError(t *testing.T, p *Prop, mp *MassProps, th *Throw, tg Target, end
 func TestPlan_PrincipalSpin_ClosedForm(t *testing.T) {
 	const hang = 1.2
 	p, mp, th := brickThrow(hang)
-	plate := Prop{Parts: []Part{{Shape: Cylinder, Radius: 0.13, Length: 0.01, Mass: 0.6, Orient: Identity()}}}
+	plate := Prop{Parts: []Part{{Shape: Cylinder, Radius: 0.13, Length: 0.01, Mass: 0.6, Orient: IdentityRotation()}}}
 	mpPlate := mustMass(t, &plate) // symmetry axis = prop z (greatest)
 	for _, c := range []struct {
 		name string
@@ -106,7 +106,7 @@ func TestPlan_RangeEnd(t *testing.T) {
 // the same closed form with t from y0 + vy t - g t^2/2 = R (exact support of
 // a sphere).
 func TestPlan_GroundSphere_ClosedForm(t *testing.T) {
-	ball := Prop{Parts: []Part{{Shape: Sphere, Radius: 0.11, Mass: 0.45, Orient: Identity()}}}
+	ball := Prop{Parts: []Part{{Shape: Sphere, Radius: 0.11, Mass: 0.45, Orient: IdentityRotation()}}}
 	mp := mustMass(t, &ball)
 	th := DefaultThrow()
 	th.Velocity = r3.Vec{X: 1, Y: 4}

@@ -29,7 +29,7 @@ func TestShifted_ParallelAxis(t *testing.T) {
 func TestRotated(t *testing.T) {
 	b := box(2, 0.2, 0.1, 0.05)
 	I := b.LocalInertia()
-	got := I.Rotated(Mat(AxisAngle(r3.Vec{Z: 1}, 45*deg)))
+	got := I.Rotated(RotationMat(AxisAngle(r3.Vec{Z: 1}, 45*deg)))
 	ix, iy := I[0][0], I[1][1]
 	want := Mat3{{(ix + iy) / 2, (ix - iy) / 2, 0}, {(ix - iy) / 2, (ix + iy) / 2, 0}, {0, 0, I[2][2]}}
 	checkMat(t, "R I R^T", got, want, 1e-12)
@@ -94,7 +94,7 @@ func TestPrincipal_Eigen(t *testing.T) {
 
 func randomRotation(rng *rand.Rand) Mat3 {
 	axis := r3.Vec{X: rng.NormFloat64(), Y: rng.NormFloat64(), Z: rng.NormFloat64()}
-	return Mat(AxisAngle(axis, rng.Float64()*2*math.Pi))
+	return RotationMat(AxisAngle(axis, rng.Float64()*2*math.Pi))
 }
 
 // TestMassProps_RotationInvariant: turning a whole prop leaves its mass and
@@ -106,11 +106,11 @@ func TestMassProps_RotationInvariant(t *testing.T) {
 	mp0 := mustMass(t, &base)
 	for range 20 {
 		R := randomRotation(rng)
-		q := FromMat(R)
+		q := RotationFromMat(R)
 		turned := Prop{}
 		for _, pt := range base.Parts {
 			pt.Position = R.MulVec(pt.Position)
-			pt.Orient = Normalize(quat.Mul(q, pt.Orient))
+			pt.Orient = NormalizeRotation(quat.Mul(q, pt.Orient))
 			turned.Parts = append(turned.Parts, pt)
 		}
 		mp := mustMass(t, &turned)
@@ -162,7 +162,7 @@ func TestMassProps_BoxHalves(t *testing.T) {
 		if w <= 0 {
 			continue
 		}
-		pt := Part{Shape: Box, Size: r3.Vec{X: w, Y: 0.2, Z: 0.1}, Density: 3 / (0.4 * 0.2 * 0.1), Orient: Identity(),
+		pt := Part{Shape: Box, Size: r3.Vec{X: w, Y: 0.2, Z: 0.1}, Density: 3 / (0.4 * 0.2 * 0.1), Orient: IdentityRotation(),
 			Position: r3.Vec{X: (cuts[i] + cuts[i+1]) / 2}}
 		parts = append(parts, pt)
 	}

@@ -101,7 +101,7 @@ func TestRatio_SymmetricContinuity(t *testing.T) {
 // periodic integrand). It returns their ratio.
 func followAxis(I [3]float64, w r3.Vec, circled Axis, periods, steps int) float64 {
 	r := newRotor(I)
-	s := body{L: lOf(I, w), Q: Identity()}
+	s := body{L: lOf(I, w), Q: IdentityRotation()}
 	T := PolhodePeriod(I, r3.Norm2(s.L), 2*r.energy(s.L))
 	lw := r3.Unit(Rotate(s.Q, s.L))
 	u := r3.Unit(r3.Cross(lw, r3.Vec{X: 0.3, Y: 0.5, Z: 0.7}))
@@ -172,7 +172,7 @@ func TestExcursion_Take(t *testing.T) {
 		th.FPS = Rate{480, 1}
 		th.Spin = Spin{Axis: Free, Vector: w, Rate: 4 * math.Pi}
 		v := Judge(&mp, &th, DefaultThresholds())
-		pw := RotateInv(FromMat(mp.PrincipalMat()), th.Omega(&mp))
+		pw := RotateInv(RotationFromMat(mp.PrincipalMat()), th.Omega(&mp))
 		l := lOf(mp.Moments, pw)
 		T := PolhodePeriod(mp.Moments, r3.Norm2(l), r3.Dot(l, pw))
 		if T > 20 {

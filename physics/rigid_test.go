@@ -53,7 +53,7 @@ func rk4(r *rotor, s body, t, h float64) body {
 		s = axpy(s, h/3, k2)
 		s = axpy(s, h/3, k3)
 		s = axpy(s, h/6, k4)
-		s.Q = Normalize(s.Q)
+		s.Q = NormalizeRotation(s.Q)
 	}
 	return s
 }
@@ -87,7 +87,7 @@ func TestRotor_Conservation(t *testing.T) {
 		t.Run(c.name, func(t *testing.T) {
 			r := newRotor(c.I)
 			l0 := r3.Vec{X: c.I[0] * c.w.X, Y: c.I[1] * c.w.Y, Z: c.I[2] * c.w.Z}
-			s := body{L: l0, Q: Normalize(quat.Number{Real: 0.9, Imag: 0.1, Jmag: -0.3, Kmag: 0.2})}
+			s := body{L: l0, Q: NormalizeRotation(quat.Number{Real: 0.9, Imag: 0.1, Jmag: -0.3, Kmag: 0.2})}
 			e0, n0, lw0 := r.energy(l0), r3.Norm(l0), Rotate(s.Q, l0)
 			var worstE, worstL, worstQ, worstW float64
 			for range 100 {
@@ -111,7 +111,7 @@ func TestRotor_Conservation(t *testing.T) {
 func TestRotor_AgainstRK4(t *testing.T) {
 	I := [3]float64{1, 2, 3}
 	r := newRotor(I)
-	s0 := body{L: r3.Vec{X: 0.01, Y: 2, Z: 0.03}, Q: Identity()}
+	s0 := body{L: r3.Vec{X: 0.01, Y: 2, Z: 0.03}, Q: IdentityRotation()}
 	refs := []struct {
 		t float64
 		w r3.Vec

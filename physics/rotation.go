@@ -10,28 +10,38 @@ import (
 // This file holds the one quaternion convention of the package: a unit
 // quat.Number q maps inner-frame vectors to the outer frame, v' = q v q*.
 
-// identity is the rotation that changes nothing.
-var identity = quat.Number{Real: 1}
+// Rotation is an orientation or a turn: a unit quaternion (gonum's
+// quat.Number, so gonum's quat functions apply to it unchanged) that maps
+// inner-frame vectors to the outer frame, v' = q v q* ([Rotate]). A part's
+// Orient maps the part frame to the prop frame, a throw's and a frame's
+// Orient the prop frame to the world. q and -q are the same rotation. The
+// helpers below say "rotation" in their names: [IdentityRotation],
+// [AxisAngle], [EulerXYZ], [RotationMat], [RotationFromMat],
+// [NormalizeRotation], [RotationAngle].
+type Rotation = quat.Number
 
-// Identity returns the identity rotation.
-func Identity() quat.Number { return identity }
+// identity is the rotation that changes nothing.
+var identity = Rotation{Real: 1}
+
+// IdentityRotation returns the identity rotation.
+func IdentityRotation() Rotation { return identity }
 
 // AxisAngle returns the rotation by angle (radians, right-hand rule) about
 // axis. A zero axis gives the identity.
-func AxisAngle(axis r3.Vec, angle float64) quat.Number {
+func AxisAngle(axis r3.Vec, angle float64) Rotation {
 	n := r3.Norm(axis)
 	if n == 0 {
 		return identity
 	}
 	s, c := math.Sincos(angle / 2)
 	f := s / n
-	return quat.Number{Real: c, Imag: axis.X * f, Jmag: axis.Y * f, Kmag: axis.Z * f}
+	return Rotation{Real: c, Imag: axis.X * f, Jmag: axis.Y * f, Kmag: axis.Z * f}
 }
 
 // EulerXYZ returns the rotation that turns about the fixed x axis by rx, then
 // the fixed y axis by ry, then the fixed z axis by rz (radians): R = Rz Ry Rx.
 // This is the order of the project file's rotation_deg and orientation_deg.
-func EulerXYZ(rx, ry, rz float64) quat.Number {
+func EulerXYZ(rx, ry, rz float64) Rotation {
 	qx := AxisAngle(r3.Vec{X: 1}, rx)
 	qy := AxisAngle(r3.Vec{Y: 1}, ry)
 	qz := AxisAngle(r3.Vec{Z: 1}, rz)
@@ -39,7 +49,7 @@ func EulerXYZ(rx, ry, rz float64) quat.Number {
 }
 
 // Rotate returns q v q* for a unit quaternion q.
-func Rotate(q quat.Number, v r3.Vec) r3.Vec {
+func Rotate(q Rotation, v r3.Vec) r3.Vec {
 	// v + 2 w (u x v) + 2 u x (u x v), u the vector part.
 	u := r3.Vec{X: q.Imag, Y: q.Jmag, Z: q.Kmag}
 	t := r3.Scale(2, r3.Cross(u, v))
@@ -47,11 +57,11 @@ func Rotate(q quat.Number, v r3.Vec) r3.Vec {
 }
 
 // RotateInv returns q* v q, the inverse rotation of v.
-func RotateInv(q quat.Number, v r3.Vec) r3.Vec { return Rotate(quat.Conj(q), v) }
+func RotateInv(q Rotation, v r3.Vec) r3.Vec { return Rotate(quat.Conj(q), v) }
 
-// Normalize returns q scaled to unit length. A zero quaternion gives the
+// NormalizeRotation returns q scaled to unit length. A zero quaternion gives the
 // identity rather than NaN.
-func Normalize(q quat.Number) quat.Number {
+func NormalizeRotation(q Rotation) Rotation {
 	n := quat.Abs(q)
 	if n == 0 {
 		return identity
@@ -59,9 +69,9 @@ func Normalize(q quat.Number) quat.Number {
 	return quat.Scale(1/n, q)
 }
 
-// Mat returns the 3x3 rotation matrix of a unit quaternion, row major:
-// Rotate(q, v) == Mat(q).MulVec(v).
-func Mat(q quat.Number) Mat3 {
+// RotationMat returns the 3x3 rotation matrix of a unit quaternion, row major:
+// Rotate(q, v) == RotationMat(q).MulVec(v).
+func RotationMat(q Rotation) Mat3 {
 	w, x, y, z := q.Real, q.Imag, q.Jmag, q.Kmag
 	return Mat3{
 		{1 - 2*(y*y+z*z), 2 * (x*y - w*z), 2 * (x*z + w*y)},
@@ -70,36 +80,36 @@ func Mat(q quat.Number) Mat3 {
 	}
 }
 
-// FromMat returns the unit quaternion of a proper rotation matrix (det +1),
+// RotationFromMat returns the unit quaternion of a proper rotation matrix (det +1),
 // by Shepperd's method (S. W. Shepperd, "Quaternion from rotation matrix",
 // J. Guidance and Control 1(3), 1978), which picks the largest of the four
 // squared components to stay accurate. The sign is chosen with w >= 0.
-func FromMat(m Mat3) quat.Number {
+func RotationFromMat(m Mat3) Rotation {
 	tr := m[0][0] + m[1][1] + m[2][2]
-	var q quat.Number
+	var q Rotation
 	switch {
 	case tr >= m[0][0] && tr >= m[1][1] && tr >= m[2][2]:
 		s := 2 * math.Sqrt(1+tr)
-		q = quat.Number{Real: s / 4, Imag: (m[2][1] - m[1][2]) / s, Jmag: (m[0][2] - m[2][0]) / s, Kmag: (m[1][0] - m[0][1]) / s}
+		q = Rotation{Real: s / 4, Imag: (m[2][1] - m[1][2]) / s, Jmag: (m[0][2] - m[2][0]) / s, Kmag: (m[1][0] - m[0][1]) / s}
 	case m[0][0] >= m[1][1] && m[0][0] >= m[2][2]:
 		s := 2 * math.Sqrt(1+m[0][0]-m[1][1]-m[2][2])
-		q = quat.Number{Real: (m[2][1] - m[1][2]) / s, Imag: s / 4, Jmag: (m[0][1] + m[1][0]) / s, Kmag: (m[0][2] + m[2][0]) / s}
+		q = Rotation{Real: (m[2][1] - m[1][2]) / s, Imag: s / 4, Jmag: (m[0][1] + m[1][0]) / s, Kmag: (m[0][2] + m[2][0]) / s}
 	case m[1][1] >= m[2][2]:
 		s := 2 * math.Sqrt(1-m[0][0]+m[1][1]-m[2][2])
-		q = quat.Number{Real: (m[0][2] - m[2][0]) / s, Imag: (m[0][1] + m[1][0]) / s, Jmag: s / 4, Kmag: (m[1][2] + m[2][1]) / s}
+		q = Rotation{Real: (m[0][2] - m[2][0]) / s, Imag: (m[0][1] + m[1][0]) / s, Jmag: s / 4, Kmag: (m[1][2] + m[2][1]) / s}
 	default:
 		s := 2 * math.Sqrt(1-m[0][0]-m[1][1]+m[2][2])
-		q = quat.Number{Real: (m[1][0] - m[0][1]) / s, Imag: (m[0][2] + m[2][0]) / s, Jmag: (m[1][2] + m[2][1]) / s, Kmag: s / 4}
+		q = Rotation{Real: (m[1][0] - m[0][1]) / s, Imag: (m[0][2] + m[2][0]) / s, Jmag: (m[1][2] + m[2][1]) / s, Kmag: s / 4}
 	}
 	if q.Real < 0 {
 		q = quat.Scale(-1, q)
 	}
-	return Normalize(q)
+	return NormalizeRotation(q)
 }
 
 // RotationAngle returns the angle in radians, in [0, pi], of the rotation that
 // takes unit quaternion a to unit quaternion b (the shorter way round).
-func RotationAngle(a, b quat.Number) float64 {
+func RotationAngle(a, b Rotation) float64 {
 	// 2 atan2(|vec|, |w|) of a* b is better conditioned than 2 acos(d) near 0.
 	r := quat.Mul(quat.Conj(a), b)
 	v := math.Sqrt(r.Imag*r.Imag + r.Jmag*r.Jmag + r.Kmag*r.Kmag)

@@ -31,7 +31,7 @@ func TestAxisAngle_Z90(t *testing.T) {
 		if !vecClose(got, ref, 1e-12) {
 			t.Fatalf("Rotate = %v, gonum r3.Rotation = %v", got, ref)
 		}
-		if m := Mat(AxisAngle(axis, a)).MulVec(v); !vecClose(m, ref, 1e-12) {
+		if m := RotationMat(AxisAngle(axis, a)).MulVec(v); !vecClose(m, ref, 1e-12) {
 			t.Fatalf("Mat . v = %v, want %v", m, ref)
 		}
 	}
@@ -54,16 +54,16 @@ func TestEulerXYZ_Order(t *testing.T) {
 func TestFromMat_RoundTrip(t *testing.T) {
 	rng := rand.New(rand.NewPCG(4, 4))
 	for range 1000 {
-		q := Normalize(quat.Number{Real: rng.NormFloat64(), Imag: rng.NormFloat64(), Jmag: rng.NormFloat64(), Kmag: rng.NormFloat64()})
-		got := FromMat(Mat(q))
+		q := NormalizeRotation(quat.Number{Real: rng.NormFloat64(), Imag: rng.NormFloat64(), Jmag: rng.NormFloat64(), Kmag: rng.NormFloat64()})
+		got := RotationFromMat(RotationMat(q))
 		if RotationAngle(got, q) > 1e-7 {
-			t.Fatalf("FromMat(Mat(%v)) = %v", q, got)
+			t.Fatalf("RotationFromMat(RotationMat(%v)) = %v", q, got)
 		}
 	}
 	// The four branches of Shepperd's method: half turns about each axis.
 	for _, axis := range []r3.Vec{{X: 1}, {Y: 1}, {Z: 1}, {X: 1, Y: 1, Z: 1}} {
 		q := AxisAngle(axis, math.Pi)
-		if a := RotationAngle(FromMat(Mat(q)), q); a > 1e-7 {
+		if a := RotationAngle(RotationFromMat(RotationMat(q)), q); a > 1e-7 {
 			t.Errorf("half turn about %v: off by %g rad", axis, a)
 		}
 	}
@@ -75,5 +75,5 @@ func TestRotationAngle(t *testing.T) {
 	checkRel(t, "angle", RotationAngle(a, b), 0.25, 1e-14)
 	// q and -q are the same rotation.
 	checkRel(t, "angle to -q", RotationAngle(b, quat.Scale(-1, b)), 0, 1e-15)
-	checkRel(t, "angle 170 deg", RotationAngle(Identity(), AxisAngle(r3.Vec{Y: 1}, 170*deg)), 170*deg, 1e-14)
+	checkRel(t, "angle 170 deg", RotationAngle(IdentityRotation(), AxisAngle(r3.Vec{Y: 1}, 170*deg)), 170*deg, 1e-14)
 }

@@ -12,12 +12,12 @@ import (
 // Frame is one sample of a take, at frame N.
 type Frame struct {
 	N       int
-	Time    float64     // seconds after release
-	CM      r3.Vec      // centre of mass, world, m
-	Orient  quat.Number // prop frame -> world
-	Omega   r3.Vec      // angular velocity, world axes, rad/s
-	TurnDeg float64     // angle turned since the previous frame along the motion, degrees (0 at frame 0; see Take)
-	Spacing float64     // centre-of-mass distance since the previous frame, m (0 at frame 0)
+	Time    float64  // seconds after release
+	CM      r3.Vec   // centre of mass, world, m
+	Orient  Rotation // prop frame -> world
+	Omega   r3.Vec   // angular velocity, world axes, rad/s
+	TurnDeg float64  // angle turned since the previous frame along the motion, degrees (0 at frame 0; see Take)
+	Spacing float64  // centre-of-mass distance since the previous frame, m (0 at frame 0)
 }
 
 // Take is the simulated flight: one frame per frame of the throw's rate,
@@ -65,22 +65,22 @@ var ErrNoLanding = errors.New("the prop does not reach the ground")
 type flight struct {
 	th    *Throw
 	rot   rotor
-	qp    quat.Number // principal frame -> prop frame
+	qp    Rotation // principal frame -> prop frame
 	parts []flightPart
 	reach float64 // no point of the prop is farther than this from its CM, m
 }
 
 type flightPart struct {
 	part   *Part
-	offset r3.Vec      // part centre relative to the prop's CM, prop frame
-	orient quat.Number // part frame -> prop frame
+	offset r3.Vec   // part centre relative to the prop's CM, prop frame
+	orient Rotation // part frame -> prop frame
 }
 
 func newFlight(p *Prop, mp *MassProps, th *Throw) *flight {
-	f := &flight{th: th, rot: newRotor(mp.Moments), qp: FromMat(mp.PrincipalMat())}
+	f := &flight{th: th, rot: newRotor(mp.Moments), qp: RotationFromMat(mp.PrincipalMat())}
 	for i := range p.Parts {
 		pt := &p.Parts[i]
-		fp := flightPart{part: pt, offset: r3.Sub(pt.Center(), mp.CM), orient: Normalize(pt.Orient)}
+		fp := flightPart{part: pt, offset: r3.Sub(pt.Center(), mp.CM), orient: NormalizeRotation(pt.Orient)}
 		f.parts = append(f.parts, fp)
 		f.reach = math.Max(f.reach, r3.Norm(fp.offset)+pt.Reach())
 	}
@@ -91,12 +91,12 @@ func newFlight(p *Prop, mp *MassProps, th *Throw) *flight {
 func (f *flight) initial(mp *MassProps) body {
 	w := RotateInv(f.qp, f.th.Omega(mp)) // prop frame -> principal frame
 	l := r3.Vec{X: mp.Moments[0] * w.X, Y: mp.Moments[1] * w.Y, Z: mp.Moments[2] * w.Z}
-	return body{L: l, Q: Normalize(quat.Mul(Normalize(f.th.Orient), f.qp))}
+	return body{L: l, Q: NormalizeRotation(quat.Mul(NormalizeRotation(f.th.Orient), f.qp))}
 }
 
 // propOrient returns the prop-frame -> world rotation of body state s.
-func (f *flight) propOrient(s body) quat.Number {
-	return Normalize(quat.Mul(s.Q, quat.Conj(f.qp)))
+func (f *flight) propOrient(s body) Rotation {
+	return NormalizeRotation(quat.Mul(s.Q, quat.Conj(f.qp)))
 }
 
 // clearance returns the height of the prop's lowest point above the ground

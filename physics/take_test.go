@@ -18,7 +18,7 @@ func TestTake_Projectile(t *testing.T) {
 	// A small ball released with its centre at y = 0 over ground at -r lands
 	// when the centre is back at 0: the level flight time.
 	r := 0.01
-	ball := Prop{Parts: []Part{{Shape: Sphere, Radius: r, Mass: 0.1, Orient: Identity()}}}
+	ball := Prop{Parts: []Part{{Shape: Sphere, Radius: r, Mass: 0.1, Orient: IdentityRotation()}}}
 	mp := mustMass(t, &ball)
 	th := DefaultThrow()
 	th.Position = r3.Vec{}
@@ -112,7 +112,7 @@ func TestTake_LandingBySupport(t *testing.T) {
 	// The orientation at the landing instant, integrated from the last frame.
 	f := newFlight(&p, &mp, &th)
 	last := take.Frames[len(take.Frames)-1]
-	qb := Normalize(quat.Mul(last.Orient, f.qp)) // principal frame -> world
+	qb := NormalizeRotation(quat.Mul(last.Orient, f.qp)) // principal frame -> world
 	s := body{L: RotateInv(qb, last.Omega), Q: qb}
 	s.L = r3.Vec{X: mp.Moments[0] * s.L.X, Y: mp.Moments[1] * s.L.Y, Z: mp.Moments[2] * s.L.Z}
 	s = run(&f.rot, s, take.FlightTime-last.Time)
@@ -140,7 +140,7 @@ func TestTake_Invariants(t *testing.T) {
 		t.Fatal(err)
 	}
 	worldL := func(f Frame) r3.Vec {
-		R := Mat(f.Orient)
+		R := RotationMat(f.Orient)
 		return mp.Inertia.Rotated(R).MulVec(f.Omega)
 	}
 	l0 := worldL(take.Frames[0])
@@ -216,7 +216,7 @@ func TestParseRate(t *testing.T) {
 // problem: an error of one ulp in L1 turns the needle about its own axis at
 // eps |L|/I1 ~ 2.4e-5 rad/s more or less.
 func TestSimulate_NeedleFlies(t *testing.T) {
-	p := Prop{Parts: []Part{{Name: "needle", Shape: Cylinder, Radius: 1e-5, Length: 1, Mass: 1, Orient: Identity()}}}
+	p := Prop{Parts: []Part{{Name: "needle", Shape: Cylinder, Radius: 1e-5, Length: 1, Mass: 1, Orient: IdentityRotation()}}}
 	mp := mustMass(t, &p)
 	th := DefaultThrow()
 	th.Velocity = r3.Vec{X: 2, Y: 4}
@@ -226,7 +226,7 @@ func TestSimulate_NeedleFlies(t *testing.T) {
 		t.Fatalf("needle spun at 10 turns/s: %v", err)
 	}
 	f0 := take.Frames[0]
-	lw := mp.Inertia.Rotated(Mat(f0.Orient)).MulVec(f0.Omega)
+	lw := mp.Inertia.Rotated(RotationMat(f0.Orient)).MulVec(f0.Omega)
 	axis := r3.Vec{Z: 1}
 	omegaAxial := r3.Dot(RotateInv(f0.Orient, f0.Omega), axis)
 	var worst float64

@@ -13,7 +13,7 @@ import (
 // axis, m r^2/2) is 2.4e-7 times the other two (m (3 r^2 + L^2)/12;
 // cylinder rows of REFERENCES.md §1.1).
 func thinWire() Prop {
-	return Prop{Parts: []Part{{Name: "wire", Shape: Cylinder, Radius: 0.2e-3, Length: 1, Density: 8960, Orient: Identity()}}}
+	return Prop{Parts: []Part{{Name: "wire", Shape: Cylinder, Radius: 0.2e-3, Length: 1, Density: 8960, Orient: IdentityRotation()}}}
 }
 
 // wireThrow spins the wire end over end (greatest axis) at 4 turns per
@@ -57,7 +57,7 @@ func TestSimulate_ThinWireSpun(t *testing.T) {
 		t.Fatalf("flight time %g s, want about 1 s", take.FlightTime)
 	}
 	f0 := take.Frames[0]
-	iw := mp.Inertia.Rotated(Mat(f0.Orient))
+	iw := mp.Inertia.Rotated(RotationMat(f0.Orient))
 	lw := iw.MulVec(f0.Omega)
 	axis := r3.Vec{Z: 1} // the cylinder's own axis, prop frame
 	iAxial, iPerp := mp.Moments[0], mp.Moments[2]
@@ -66,7 +66,7 @@ func TestSimulate_ThinWireSpun(t *testing.T) {
 	for _, f := range take.Frames {
 		want := symmetricTop(f0.Orient, lw, axis, iAxial, iPerp, omegaAxial, f.Time)
 		worstAngle = math.Max(worstAngle, RotationAngle(f.Orient, want))
-		l := mp.Inertia.Rotated(Mat(f.Orient)).MulVec(f.Omega)
+		l := mp.Inertia.Rotated(RotationMat(f.Orient)).MulVec(f.Omega)
 		worstL = math.Max(worstL, r3.Norm(r3.Sub(l, lw))/r3.Norm(lw))
 		worstQ = math.Max(worstQ, math.Abs(quat.Abs(f.Orient)-1))
 	}
@@ -107,7 +107,7 @@ func TestRotor_JacobianFiniteDifference(t *testing.T) {
 func TestStepper_NewtonMatchesFixedPoint(t *testing.T) {
 	I := [3]float64{1, 2, 3}
 	r := newRotor(I)
-	b := body{L: r3.Vec{X: 0.3, Y: 2, Z: -0.6}, Q: Normalize(quat.Number{Real: 0.9, Imag: 0.1, Jmag: -0.3, Kmag: 0.2})}
+	b := body{L: r3.Vec{X: 0.3, Y: 2, Z: -0.6}, Q: NormalizeRotation(quat.Number{Real: 0.9, Imag: 0.1, Jmag: -0.3, Kmag: 0.2})}
 	h := 0.2 // h |L|/I1 = 0.42
 	fixed := r.step(b, h)
 	st := stepper{rot: &r, h: h}
@@ -138,7 +138,7 @@ func TestRotor_NewtonKeepsInvariants(t *testing.T) {
 	r := newRotor(mp.Moments)
 	w := r3.Vec{X: 25 * math.Sin(3*deg), Z: 25 * math.Cos(3*deg)}
 	l := r3.Vec{X: mp.Moments[0] * w.X, Y: mp.Moments[1] * w.Y, Z: mp.Moments[2] * w.Z}
-	s := body{L: l, Q: Normalize(quat.Number{Real: 0.9, Imag: 0.1, Jmag: -0.3, Kmag: 0.2})}
+	s := body{L: l, Q: NormalizeRotation(quat.Number{Real: 0.9, Imag: 0.1, Jmag: -0.3, Kmag: 0.2})}
 	e0, l0 := r.energy(l), r3.Norm2(l)
 	h := 0.35 / r.fastest(l)
 	if stiff := h * r3.Norm(l) * r.inv[0]; stiff < 1e5 {
@@ -178,7 +178,7 @@ func TestRotor_Fastest(t *testing.T) {
 		t.Run(c.name, func(t *testing.T) {
 			r := newRotor(c.I)
 			l := r3.Vec{X: c.I[0] * c.w.X, Y: c.I[1] * c.w.Y, Z: c.I[2] * c.w.Z}
-			s := body{L: l, Q: Identity()}
+			s := body{L: l, Q: IdentityRotation()}
 			var most float64
 			for range 3000 {
 				s = rk4(&r, s, c.span/3000, c.span/30000)

@@ -60,11 +60,11 @@ type Spin struct {
 // moves at release (frame 0), how it is turned and spinning, and the world.
 type Throw struct {
 	FPS      Rate
-	Gravity  float64     // m/s^2, acting along -Y
-	Position r3.Vec      // centre of mass at release, world, m
-	Velocity r3.Vec      // centre-of-mass velocity at release, world, m/s
-	Orient   quat.Number // prop frame -> world at release
-	GroundY  float64     // height of the ground plane, m
+	Gravity  float64  // m/s^2, acting along -Y
+	Position r3.Vec   // centre of mass at release, world, m
+	Velocity r3.Vec   // centre-of-mass velocity at release, world, m/s
+	Orient   Rotation // prop frame -> world at release
+	GroundY  float64  // height of the ground plane, m
 	Spin     Spin
 }
 

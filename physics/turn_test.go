@@ -43,7 +43,7 @@ func TestTake_TurnFromMotion(t *testing.T) {
 // the axis wobbles, whatever the integration steps.
 func TestTake_TurnOfWobble(t *testing.T) {
 	// Dinner plate: a thin disc (REFERENCES.md §1.2), wobbling 10 degrees.
-	p := Prop{Parts: []Part{{Name: "plate", Shape: Cylinder, Radius: 0.135, Length: 0.004, Mass: 0.5, Orient: Identity()}}}
+	p := Prop{Parts: []Part{{Name: "plate", Shape: Cylinder, Radius: 0.135, Length: 0.004, Mass: 0.5, Orient: IdentityRotation()}}}
 	mp := mustMass(t, &p)
 	th := DefaultThrow()
 	th.Velocity = r3.Vec{X: 1, Y: 4}

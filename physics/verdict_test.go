@@ -13,7 +13,7 @@ import (
 // L2 changes sign, each refined by bisection on the integration step.
 func flips(I [3]float64, l r3.Vec, horizon float64) []float64 {
 	r := newRotor(I)
-	s := body{L: l, Q: Identity()}
+	s := body{L: l, Q: IdentityRotation()}
 	n := r.substeps(l, horizon) * 4
 	h := horizon / float64(n)
 	var out []float64
@@ -147,7 +147,7 @@ func TestExcursion_Numerical(t *testing.T) {
 			axis = r3.Vec{X: 1}
 		}
 		r := newRotor(I)
-		s := body{L: l, Q: Identity()}
+		s := body{L: l, Q: IdentityRotation()}
 		T := PolhodePeriod(I, r3.Norm2(l), 2*r.energy(l))
 		worst := 0.0
 		for range 20000 {
@@ -172,7 +172,7 @@ func TestGrowthRate_Numerical(t *testing.T) {
 	eps := 1e-7
 	w := r3.Vec{X: eps, Y: omega, Z: eps * ratio}
 	r := newRotor(I)
-	s := run(&r, body{L: lOf(I, w), Q: Identity()}, 5)
+	s := run(&r, body{L: lOf(I, w), Q: IdentityRotation()}, 5)
 	w5 := r.omega(s.L)
 	got := math.Log(math.Hypot(w5.X, w5.Z)/math.Hypot(w.X, w.Z)) / 5
 	checkRel(t, "growth rate", got, lambda, 1e-5)
@@ -191,7 +191,7 @@ func TestGrowthRate_Numerical(t *testing.T) {
 // about the fixed world angular momentum.
 func measurePrecession(I [3]float64, w r3.Vec, span float64) float64 {
 	r := newRotor(I)
-	s := body{L: lOf(I, w), Q: Identity()}
+	s := body{L: lOf(I, w), Q: IdentityRotation()}
 	lw := r3.Unit(Rotate(s.Q, s.L))
 	// Basis of the plane perpendicular to L.
 	u := r3.Unit(r3.Cross(lw, r3.Vec{X: 1}))
@@ -235,7 +235,7 @@ func TestSymmetricTop_Precession(t *testing.T) {
 // Classical Mechanics §26.2) — through Judge on a real prop, and compared
 // with the precession measured from the integration.
 func TestWobble_Disc(t *testing.T) {
-	plate := Prop{Parts: []Part{{Name: "disc", Shape: Cylinder, Radius: 0.135, Length: 1e-5, Mass: 0.5, Orient: Identity()}}}
+	plate := Prop{Parts: []Part{{Name: "disc", Shape: Cylinder, Radius: 0.135, Length: 1e-5, Mass: 0.5, Orient: IdentityRotation()}}}
 	mp := mustMass(t, &plate)
 	th := DefaultThrow()
 	th.Spin = Spin{Axis: Greatest, Tilt: 1 * deg, TiltToward: Least, Rate: 2 * 2 * math.Pi}
@@ -264,7 +264,7 @@ func TestWobble_Disc(t *testing.T) {
 		t.Errorf("wobbles per Euler turn = %g, want 2", v.WobblesPerEulerTurn)
 	}
 	// Precession from the integration agrees with Judge.
-	w := RotateInv(FromMat(mp.PrincipalMat()), th.Omega(&mp))
+	w := RotateInv(RotationFromMat(mp.PrincipalMat()), th.Omega(&mp))
 	got := measurePrecession(mp.Moments, w, 1)
 	checkRel(t, "measured precession", got, v.PrecessionRate, integrateTol)
 }
@@ -305,7 +305,7 @@ func TestJudge_Rules(t *testing.T) {
 		t.Errorf("exact middle axis: %+v", v)
 	}
 	// A sphere always spins; zero spin is a spin.
-	ball := Prop{Parts: []Part{{Shape: Sphere, Radius: 0.1, Mass: 1, Orient: Identity()}}}
+	ball := Prop{Parts: []Part{{Shape: Sphere, Radius: 0.1, Mass: 1, Orient: IdentityRotation()}}}
 	bm := mustMass(t, &ball)
 	th.Spin = Spin{Axis: Free, Vector: r3.Vec{X: 1, Y: 2, Z: 3}, Rate: 10}
 	if v := Judge(&bm, &th, DefaultThresholds()); v.Symmetry != Spherical || v.Motion != Spinning {
@@ -316,7 +316,7 @@ func TestJudge_Rules(t *testing.T) {
 		t.Errorf("no spin: %v, excursion %g", v.Motion, v.ExcursionDeg)
 	}
 	// A prolate body end over end (theta = 90) counts as a spin.
-	pin := Prop{Parts: []Part{{Shape: Cylinder, Radius: 0.03, Length: 0.45, Mass: 1, Orient: Identity()}}}
+	pin := Prop{Parts: []Part{{Shape: Cylinder, Radius: 0.03, Length: 0.45, Mass: 1, Orient: IdentityRotation()}}}
 	pm := mustMass(t, &pin)
 	th.Spin = Spin{Axis: Greatest, Rate: 4 * math.Pi}
 	if v := Judge(&pm, &th, DefaultThresholds()); v.Symmetry != Prolate || v.Motion != Spinning || math.Abs(v.ExcursionDeg-90) > 1e-9 {
@@ -350,7 +350,7 @@ func TestJudge_TinyRate(t *testing.T) {
 		checkRel(t, "flip period", v.FlipPeriod, want, 1e-9)
 	}
 	// A symmetric body: the wobble ratio is scale-free too.
-	disc := Prop{Parts: []Part{{Shape: Cylinder, Radius: 0.135, Length: 0.01, Mass: 0.5, Orient: Identity()}}}
+	disc := Prop{Parts: []Part{{Shape: Cylinder, Radius: 0.135, Length: 0.01, Mass: 0.5, Orient: IdentityRotation()}}}
 	dm := mustMass(t, &disc)
 	th.Spin = Spin{Axis: Greatest, Tilt: 5 * deg, TiltToward: Least, Rate: 4 * math.Pi}
 	ref = Judge(&dm, &th, DefaultThresholds())

@@ -7,7 +7,6 @@ import (
 	"math"
 	"strconv"
 
-	"gonum.org/v1/gonum/num/quat"
 	"gonum.org/v1/gonum/spatial/r3"
 
 	"propflight/physics"
@@ -97,7 +96,7 @@ func ZUpFrame(f physics.Frame) physics.Frame {
 	f.CM = ZUpVec(f.CM)
 	f.Omega = ZUpVec(f.Omega)
 	q := f.Orient
-	f.Orient = quat.Number{Real: q.Real, Imag: q.Imag, Jmag: -q.Kmag, Kmag: q.Jmag}
+	f.Orient = physics.Rotation{Real: q.Real, Imag: q.Imag, Jmag: -q.Kmag, Kmag: q.Jmag}
 	return f
 }
 

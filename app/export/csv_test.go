@@ -20,7 +20,7 @@ import (
 // about its middle axis) as the CLI does.
 func brickTake(t testing.TB) *physics.Take {
 	t.Helper()
-	prop := physics.Prop{Parts: []physics.Part{{Name: "brick", Shape: physics.Box, Size: r3.Vec{X: 0.2, Y: 0.1, Z: 0.05}, Mass: 2, Orient: physics.Identity()}}}
+	prop := physics.Prop{Parts: []physics.Part{{Name: "brick", Shape: physics.Box, Size: r3.Vec{X: 0.2, Y: 0.1, Z: 0.05}, Mass: 2, Orient: physics.IdentityRotation()}}}
 	mp, err := prop.MassProps()
 	if err != nil {
 		t.Fatal(err)
@@ -143,8 +143,8 @@ func ExampleWriteCSV() {
 	// A prop dropped at 25 fps from rest, no spin: two frames by hand
 	// (y = 1.5 - g t^2 / 2 with g = 9.80665 m/s^2, t = 0.04 s).
 	take := &physics.Take{LandingFrame: 1, Frames: []physics.Frame{
-		{N: 0, CM: r3.Vec{Y: 1.5}, Orient: physics.Identity()},
-		{N: 1, Time: 0.04, CM: r3.Vec{Y: 1.49215468}, Orient: physics.Identity(), Spacing: 0.00784532},
+		{N: 0, CM: r3.Vec{Y: 1.5}, Orient: physics.IdentityRotation()},
+		{N: 1, Time: 0.04, CM: r3.Vec{Y: 1.49215468}, Orient: physics.IdentityRotation(), Spacing: 0.00784532},
 	}}
 	w := bufio.NewWriter(os.Stdout)
 	if err := WriteCSV(w, take); err != nil {
@@ -206,7 +206,7 @@ func TestWriteCSVTwos(t *testing.T) {
 
 func twosTake(t *testing.T) *physics.Take {
 	t.Helper()
-	prop := physics.Prop{Parts: []physics.Part{{Shape: physics.Box, Size: r3.Vec{X: 0.3, Y: 0.2, Z: 0.02}, Mass: 1, Orient: physics.Identity()}}}
+	prop := physics.Prop{Parts: []physics.Part{{Shape: physics.Box, Size: r3.Vec{X: 0.3, Y: 0.2, Z: 0.02}, Mass: 1, Orient: physics.IdentityRotation()}}}
 	mp, err := prop.MassProps()
 	if err != nil {
 		t.Fatal(err)

@@ -165,7 +165,7 @@ func writeEmbedded(w io.Writer, doc *gltfDoc, bin []byte) error {
 type key struct {
 	t float64
 	p r3.Vec
-	q quat.Number
+	q physics.Rotation
 }
 
 // animationKeys returns the keys: the take's frames, or a finer take at an
@@ -477,7 +477,7 @@ func unitFloat32(v r3.Vec) r3.Vec {
 	return r3.Vec{X: float64(float32(v.X / n)), Y: float64(float32(v.Y / n)), Z: float64(float32(v.Z / n))}
 }
 
-func unitQuatFloat32(q quat.Number) quat.Number {
-	q = physics.Normalize(q)
-	return quat.Number{Real: float64(float32(q.Real)), Imag: float64(float32(q.Imag)), Jmag: float64(float32(q.Jmag)), Kmag: float64(float32(q.Kmag))}
+func unitQuatFloat32(q physics.Rotation) physics.Rotation {
+	q = physics.NormalizeRotation(q)
+	return physics.Rotation{Real: float64(float32(q.Real)), Imag: float64(float32(q.Imag)), Jmag: float64(float32(q.Jmag)), Kmag: float64(float32(q.Kmag))}
 }

@@ -21,7 +21,7 @@ func rackInput(tb testing.TB, n int) Input {
 	tb.Helper()
 	prop := physics.Prop{Parts: make([]physics.Part, n)}
 	for i := range prop.Parts {
-		prop.Parts[i] = physics.Part{Shape: physics.Torus, Radius: 0.01, TubeRadius: 0.002, Mass: 0.01, Orient: physics.Identity(),
+		prop.Parts[i] = physics.Part{Shape: physics.Torus, Radius: 0.01, TubeRadius: 0.002, Mass: 0.01, Orient: physics.IdentityRotation(),
 			Position: r3.Vec{X: float64(i%10) * 0.03, Y: float64(i/10%10) * 0.03, Z: float64(i/100) * 0.03}}
 	}
 	mp, err := prop.MassProps()

@@ -24,7 +24,7 @@ func panInput(t testing.TB, turnsPerSecond float64) Input {
 	t.Helper()
 	prop := physics.Prop{Parts: []physics.Part{
 		{Name: "pan", Shape: physics.Cylinder, Radius: 0.12, Length: 0.03, Mass: 0.9, Orient: physics.EulerXYZ(math.Pi/2, 0, 0)},
-		{Name: "handle", Shape: physics.Box, Size: r3.Vec{X: 0.22, Y: 0.025, Z: 0.03}, Mass: 0.3, Position: r3.Vec{X: 0.23}, Orient: physics.Identity()},
+		{Name: "handle", Shape: physics.Box, Size: r3.Vec{X: 0.22, Y: 0.025, Z: 0.03}, Mass: 0.3, Position: r3.Vec{X: 0.23}, Orient: physics.IdentityRotation()},
 	}}
 	mp, err := prop.MassProps()
 	if err != nil {
@@ -98,7 +98,7 @@ func TestGLTF_KeysEqualTake(t *testing.T) {
 			t.Errorf("key %d translation %v, CM %v", i, p, f.CM)
 		}
 		q := quat.Number{Real: rots[4*i+3], Imag: rots[4*i], Jmag: rots[4*i+1], Kmag: rots[4*i+2]}
-		if a := physics.RotationAngle(physics.Normalize(q), f.Orient); a > 1e-6 {
+		if a := physics.RotationAngle(physics.NormalizeRotation(q), f.Orient); a > 1e-6 {
 			t.Errorf("key %d rotation off by %g rad", i, a)
 		}
 	}

@@ -23,9 +23,9 @@ import (
 func pngTestInput(t testing.TB) Input {
 	t.Helper()
 	prop := physics.Prop{Parts: []physics.Part{
-		{Name: "barrel", Shape: physics.Cylinder, Radius: 0.03, Length: 0.3, Density: 700, Orient: physics.Identity()},
-		{Name: "left handle", Shape: physics.Cylinder, Radius: 0.012, Length: 0.09, Density: 700, Position: r3.Vec{Z: -0.195}, Orient: physics.Identity()},
-		{Name: "right handle", Shape: physics.Cylinder, Radius: 0.012, Length: 0.09, Density: 700, Position: r3.Vec{Z: 0.195}, Orient: physics.Identity()},
+		{Name: "barrel", Shape: physics.Cylinder, Radius: 0.03, Length: 0.3, Density: 700, Orient: physics.IdentityRotation()},
+		{Name: "left handle", Shape: physics.Cylinder, Radius: 0.012, Length: 0.09, Density: 700, Position: r3.Vec{Z: -0.195}, Orient: physics.IdentityRotation()},
+		{Name: "right handle", Shape: physics.Cylinder, Radius: 0.012, Length: 0.09, Density: 700, Position: r3.Vec{Z: 0.195}, Orient: physics.IdentityRotation()},
 	}}
 	mp, err := prop.MassProps()
 	if err != nil {

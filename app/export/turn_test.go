@@ -16,7 +16,7 @@ import (
 // second, 24 fps.
 func spinInput(t *testing.T, tps float64) Input {
 	t.Helper()
-	prop := physics.Prop{Parts: []physics.Part{{Name: "board", Shape: physics.Box, Size: r3.Vec{X: 0.3, Y: 0.2, Z: 0.02}, Mass: 1, Orient: physics.Identity()}}}
+	prop := physics.Prop{Parts: []physics.Part{{Name: "board", Shape: physics.Box, Size: r3.Vec{X: 0.3, Y: 0.2, Z: 0.02}, Mass: 1, Orient: physics.IdentityRotation()}}}
 	mp, err := prop.MassProps()
 	if err != nil {
 		t.Fatal(err)

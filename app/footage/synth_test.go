@@ -40,7 +40,7 @@ func newSynth(t testing.TB) *synthFootage {
 	t.Helper()
 	sf := &synthFootage{lever: r3.Vec{X: 0.16}}
 	sf.prop = physics.Prop{Parts: []physics.Part{{Name: "board", Shape: physics.Box, Size: r3.Vec{X: 0.36, Y: 0.24, Z: 0.02},
-		Mass: 1.2, Orient: physics.Identity()}}}
+		Mass: 1.2, Orient: physics.IdentityRotation()}}}
 	mp, err := sf.prop.MassProps()
 	if err != nil {
 		t.Fatal(err)

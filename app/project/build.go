@@ -203,7 +203,7 @@ func (b *builder) part(p *Part, path string) (physics.Part, error) {
 		return physics.Part{}, pr.in(b.file)
 	}
 	shape, _ := physics.ParseShape(p.Shape)
-	out := physics.Part{Name: p.Name, Shape: shape, Orient: physics.Identity()}
+	out := physics.Part{Name: p.Name, Shape: shape, Orient: physics.IdentityRotation()}
 	for _, k := range shapeFields[shape] {
 		field := join(path, k)
 		var err error
@@ -345,7 +345,7 @@ func (b *builder) throw(t *Throw) (physics.Throw, error) {
 	if pr := throwFields(t); pr != nil {
 		return physics.Throw{}, pr.in(b.file)
 	}
-	th := physics.Throw{Gravity: physics.StandardGravity, Position: vec(DefaultReleasePosition), Orient: physics.Identity()}
+	th := physics.Throw{Gravity: physics.StandardGravity, Position: vec(DefaultReleasePosition), Orient: physics.IdentityRotation()}
 	var err error
 	if th.FPS, err = b.rate(t.FPS); err != nil {
 		return physics.Throw{}, err

@@ -140,7 +140,7 @@ func TestBuild_Defaults(t *testing.T) {
 	if th.Position != (r3.Vec{Y: 1.5}) || th.Velocity != (r3.Vec{}) || th.GroundY != 0 {
 		t.Errorf("position %v velocity %v ground %g", th.Position, th.Velocity, th.GroundY)
 	}
-	if th.Orient != physics.Identity() {
+	if th.Orient != physics.IdentityRotation() {
 		t.Errorf("orientation %v", th.Orient)
 	}
 	if th.Spin.Rate != 0 || th.Spin.Axis != physics.Greatest {
@@ -149,7 +149,7 @@ func TestBuild_Defaults(t *testing.T) {
 	if err := th.Validate(); err != nil {
 		t.Error(err)
 	}
-	if sc.Prop.Parts[0].Orient != physics.Identity() || sc.Prop.Parts[0].Position != (r3.Vec{}) {
+	if sc.Prop.Parts[0].Orient != physics.IdentityRotation() || sc.Prop.Parts[0].Position != (r3.Vec{}) {
 		t.Errorf("part defaults %+v", sc.Prop.Parts[0])
 	}
 }

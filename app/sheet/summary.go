@@ -3,8 +3,6 @@ package sheet
 import (
 	"math"
 
-	"gonum.org/v1/gonum/num/quat"
-
 	"propflight/internal/printable"
 	"propflight/physics"
 )
@@ -201,7 +199,7 @@ func (s *sheet) partsTable(x, y, w float64) float64 {
 // no turn. An orientation has one such triple with |y| < 90 degrees
 // (away from y = ±90, where x and z turn about one axis), so the file's
 // own numbers come back whenever they lie in that range.
-func rotationText(q quat.Number) string {
+func rotationText(q physics.Rotation) string {
 	x, y, z := eulerXYZ(q)
 	if math.Abs(x)+math.Abs(y)+math.Abs(z) < 5e-4 {
 		return "none"
@@ -211,8 +209,8 @@ func rotationText(q quat.Number) string {
 
 // eulerXYZ returns the angles, degrees, with physics.EulerXYZ(x, y, z) = q
 // (up to sign), y in [-90, 90].
-func eulerXYZ(q quat.Number) (x, y, z float64) {
-	m := physics.Mat(physics.Normalize(q))
+func eulerXYZ(q physics.Rotation) (x, y, z float64) {
+	m := physics.RotationMat(physics.NormalizeRotation(q))
 	sy := math.Max(-1, math.Min(1, -m[2][0]))
 	y = math.Asin(sy)
 	if math.Abs(sy) < 1-1e-12 {

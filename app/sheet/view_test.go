@@ -105,7 +105,7 @@ func TestEulerXYZ_RoundTrip(t *testing.T) {
 	if got := rotationText(physics.EulerXYZ(math.Pi/2, 0, 0)); got != "(90.0, 0.0, 0.0)°" {
 		t.Errorf("rotationText = %q", got)
 	}
-	if got := rotationText(physics.Identity()); got != "none" {
+	if got := rotationText(physics.IdentityRotation()); got != "none" {
 		t.Errorf("no turn: %q", got)
 	}
 }

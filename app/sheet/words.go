@@ -3,7 +3,6 @@ package sheet
 import (
 	"math"
 
-	"gonum.org/v1/gonum/num/quat"
 	"gonum.org/v1/gonum/spatial/r3"
 
 	"propflight/physics"
@@ -208,8 +207,8 @@ func (s *sheet) massItems() []item {
 
 // rotationWords describes a prop-to-world rotation as an angle about a
 // world axis.
-func rotationWords(q quat.Number) string {
-	o := physics.Normalize(q)
+func rotationWords(q physics.Rotation) string {
+	o := physics.NormalizeRotation(q)
 	v := r3.Vec{X: o.Imag, Y: o.Jmag, Z: o.Kmag}
 	n := r3.Norm(v)
 	angle := 2 * math.Atan2(n, math.Abs(o.Real))

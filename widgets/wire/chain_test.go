@@ -63,7 +63,7 @@ func TestDraw_ChainsMergeWithinTolerance(t *testing.T) {
 	const n = 512
 	v, tr := weldedCylinder(0.05, 0.01, n)
 	prop := &physics.Prop{Parts: []physics.Part{{Name: "disc", Shape: physics.MeshShape,
-		Mesh: &mesh.Mesh{V: v, T: tr}, Mass: 0.2, Orient: physics.Identity()}}}
+		Mesh: &mesh.Mesh{V: v, T: tr}, Mass: 0.2, Orient: physics.IdentityRotation()}}}
 	mp, err := prop.MassProps()
 	if err != nil {
 		t.Fatal(err)

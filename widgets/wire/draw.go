@@ -300,13 +300,13 @@ func bounds(sc Scene, mp *physics.MassProps, pw *propWire) r3.Box {
 // rotation matrix at frame i; with no frames, the authored pose.
 func pose(frames []physics.Frame, i int, mp *physics.MassProps) (r3.Vec, physics.Mat3) {
 	if i >= 0 && i < len(frames) {
-		return frames[i].CM, physics.Mat(physics.Normalize(frames[i].Orient))
+		return frames[i].CM, physics.RotationMat(physics.NormalizeRotation(frames[i].Orient))
 	}
 	var cm r3.Vec
 	if mp != nil {
 		cm = mp.CM
 	}
-	return cm, physics.Mat(physics.Identity())
+	return cm, physics.RotationMat(physics.IdentityRotation())
 }
 
 // onionAlpha is the opacity of the onion-skin frame k away of n.
@@ -349,7 +349,7 @@ func newPropWire(p *physics.Prop, mp *physics.MassProps, detail int) *propWire {
 	pw := &propWire{}
 	for i := range p.Parts {
 		pt := &p.Parts[i]
-		r := physics.Mat(physics.Normalize(pt.Orient))
+		r := physics.RotationMat(physics.NormalizeRotation(pt.Orient))
 		pos := r3.Sub(pt.Position, mp.CM)
 		if o := partOutline(pt); o != nil {
 			// A mesh part: its creases are fixed lines, its contour is

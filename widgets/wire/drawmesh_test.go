@@ -150,7 +150,7 @@ func TestDraw_MeshSphereContour(t *testing.T) {
 func TestDraw_MeshConcurrent(t *testing.T) {
 	v, tr := fixture.PanBowl(64, 4)
 	prop := &physics.Prop{Parts: []physics.Part{{Name: "pan", Shape: physics.MeshShape,
-		Mesh: &mesh.Mesh{V: v, T: tr}, Mass: 0.8, Orient: physics.Identity()}}}
+		Mesh: &mesh.Mesh{V: v, T: tr}, Mass: 0.8, Orient: physics.IdentityRotation()}}}
 	mp, err := prop.MassProps()
 	if err != nil {
 		t.Fatal(err)

@@ -95,8 +95,8 @@ func PropMesh(p *physics.Prop, detail int) Mesh {
 	for i := range p.Parts {
 		pt := &p.Parts[i]
 		m := PartMesh(pt, detail)
-		q := physics.Normalize(pt.Orient)
-		r := physics.Mat(q)
+		q := physics.NormalizeRotation(pt.Orient)
+		r := physics.RotationMat(q)
 		base := uint32(len(out.Vertices))
 		for j, v := range m.Vertices {
 			out.Vertices = append(out.Vertices, r3.Add(pt.Position, r.MulVec(v)))

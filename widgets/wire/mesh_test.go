@@ -14,7 +14,7 @@ import (
 // testParts has one part of every shape, with unequal sizes so that axis
 // mix-ups show. Shell is meshed as its sphere and has no volume of its own.
 func testParts() []physics.Part {
-	id := physics.Identity()
+	id := physics.IdentityRotation()
 	return []physics.Part{
 		{Name: "box", Shape: physics.Box, Size: r3.Vec{X: 0.3, Y: 0.2, Z: 0.05}, Mass: 1, Orient: id},
 		{Name: "cylinder", Shape: physics.Cylinder, Radius: 0.12, Length: 0.04, Mass: 1, Orient: id},
