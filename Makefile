@@ -57,6 +57,7 @@ fuzz:
 	$(GO) test -run XXX -fuzz FuzzParse -fuzztime 30s ./app/cli
 	for f in FuzzReadSTL FuzzReadOBJ FuzzReadGLB FuzzReadGLTF; do $(GO) test -run XXX -fuzz "^$$f$$" -fuzztime 15s ./app/meshio || exit 1; done
 	$(GO) test -run XXX -fuzz FuzzString -fuzztime 30s ./internal/printable
+	for f in FuzzParseMarks FuzzOpenGIF; do $(GO) test -run XXX -fuzz "^$$f$$" -fuzztime 15s ./app/footage || exit 1; done
 
 # install: the program, its menu entry, metainfo and icons under
 # $(DESTDIR)$(PREFIX) (freedesktop layout; REFERENCES.md §12).

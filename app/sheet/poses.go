@@ -65,7 +65,7 @@ func (s *sheet) posePage() error {
 	if s.opt.PoseView == PoseBest {
 		words += " (chosen: it shows the poses largest)"
 	}
-	y = s.section(x, y, w, "Poses: the keys, the breakdowns and every "+ordinal(s.poseStep)+" frame")
+	y = s.section(x, y, w, "Poses: the keys, the breakdowns and "+everyNth(s.poseStep)+" frame")
 	s.font("", sizeSmall)
 	ink(p, inkSoft)
 	p.SetXY(x, y)
@@ -88,13 +88,22 @@ func (s *sheet) posePage() error {
 	return p.Error()
 }
 
-// ordinal returns "2nd", "3rd", "5th"; 1 gives "".
+// everyNth returns "every", "every 2nd", "every 21st", ... for a step of
+// n frames.
+func everyNth(n int) string {
+	if n <= 1 {
+		return "every"
+	}
+	return "every " + ordinal(n)
+}
+
+// ordinal returns "1st", "2nd", "3rd", "5th", "11th", "21st".
 func ordinal(n int) string {
 	switch {
-	case n == 1:
-		return ""
 	case n%100 >= 11 && n%100 <= 13:
 		return itoa(n) + "th"
+	case n%10 == 1:
+		return itoa(n) + "st"
 	case n%10 == 2:
 		return itoa(n) + "nd"
 	case n%10 == 3:

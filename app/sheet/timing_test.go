@@ -178,6 +178,8 @@ func TestFormat(t *testing.T) {
 		{sig(0, 3), "0"},
 		{vec(r3.Vec{X: -0.081, Y: 0, Z: 0.997}, 3), "(−0.081, 0.000, 0.997)"},
 		{ordinal(2), "2nd"}, {ordinal(3), "3rd"}, {ordinal(5), "5th"}, {ordinal(12), "12th"}, {ordinal(22), "22nd"},
+		{ordinal(1), "1st"}, {ordinal(21), "21st"}, {ordinal(111), "111th"},
+		{everyNth(1), "every"}, {everyNth(2), "every 2nd"}, {everyNth(31), "every 31st"},
 	} {
 		if c.got != c.want {
 			t.Errorf("got %q, want %q", c.got, c.want)
