@@ -30,7 +30,7 @@ func (tg Target) Validate() error {
 // turned into the world by the prop orientation q (prop frame -> world) and
 // the target direction.
 func (tg Target) Error(q Rotation) float64 {
-	a := Rotate(q, r3.Unit(tg.Axis))
+	a := q.Rotate(r3.Unit(tg.Axis))
 	d := r3.Unit(tg.Dir)
 	return math.Atan2(r3.Norm(r3.Cross(a, d)), r3.Dot(a, d))
 }

@@ -48,7 +48,7 @@ func TestMeshPart_EqualsBox(t *testing.T) {
 		q := AxisAngle(r3.Vec{X: rng.NormFloat64(), Y: rng.NormFloat64(), Z: rng.NormFloat64()}, rng.Float64()*6)
 		pos := r3.Vec{X: rng.Float64(), Y: rng.Float64(), Z: rng.Float64()}
 		mp := Part{Shape: MeshShape, Mesh: boxMesh(t, size, fileCentre), Density: 700, Position: pos, Orient: q}
-		bp := Part{Shape: Box, Size: size, Density: 700, Position: r3.Add(pos, Rotate(q, fileCentre)), Orient: q}
+		bp := Part{Shape: Box, Size: size, Density: 700, Position: r3.Add(pos, q.Rotate(fileCentre)), Orient: q}
 		// A second, plain part so the parallel-axis shift matters.
 		other := Part{Shape: Sphere, Radius: 0.05, Mass: 0.4, Position: r3.Vec{X: 0.5}, Orient: IdentityRotation()}
 		got := mustMass(t, &Prop{Parts: []Part{mp, other}})
@@ -91,7 +91,7 @@ func TestMeshPart_TakeMatchesBox(t *testing.T) {
 	size := r3.Vec{X: 0.4, Y: 0.1, Z: 0.06}
 	q := AxisAngle(r3.Vec{X: 1, Y: 2, Z: 3}, 0.7)
 	mp := Prop{Parts: []Part{{Shape: MeshShape, Mesh: boxMesh(t, size, r3.Vec{X: 0.1}), Mass: 1.2, Orient: q}}}
-	bp := Prop{Parts: []Part{{Shape: Box, Size: size, Mass: 1.2, Position: Rotate(q, r3.Vec{X: 0.1}), Orient: q}}}
+	bp := Prop{Parts: []Part{{Shape: Box, Size: size, Mass: 1.2, Position: q.Rotate(r3.Vec{X: 0.1}), Orient: q}}}
 	th := DefaultThrow()
 	th.Velocity = r3.Vec{X: 2, Y: 4}
 	th.Spin.Rate = 9

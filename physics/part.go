@@ -178,7 +178,7 @@ func (p *Part) Validate() error {
 	if !finiteVec(p.Position) {
 		return fieldErr("position", "must be finite numbers")
 	}
-	if q := p.Orient; !finite(q.Real) || !finite(q.Imag) || !finite(q.Jmag) || !finite(q.Kmag) || quat.Abs(q) == 0 {
+	if q := p.Orient; !finite(q.Real) || !finite(q.Imag) || !finite(q.Jmag) || !finite(q.Kmag) || quat.Abs(q.Quat()) == 0 {
 		return fieldErr("rotation_deg", "must be finite numbers")
 	}
 	return nil
@@ -297,7 +297,7 @@ func (p *Part) Center() r3.Vec {
 	if p.Shape != MeshShape {
 		return p.Position
 	}
-	return r3.Add(p.Position, Rotate(NormalizeRotation(p.Orient), p.localCenter()))
+	return r3.Add(p.Position, p.Orient.Normalize().Rotate(p.localCenter()))
 }
 
 // LocalSupport returns max over the part's points p (own frame) of p . u, the

@@ -152,7 +152,7 @@ func (pl *planner) end(r float64) (float64, r3.Vec) {
 		t = pl.contact(r)
 	}
 	q := pl.f.propOrient(pl.motion.at(r * t))
-	return t, Rotate(q, pl.axis)
+	return t, q.Rotate(pl.axis)
 }
 
 // contact returns the first ground contact at rate r, checked on the same

@@ -88,7 +88,7 @@ func (p *Prop) MassProps() (MassProps, error) {
 	mp.CM = r3.Scale(1/mp.Mass, first)
 	for i := range p.Parts {
 		pt := &p.Parts[i]
-		local := pt.LocalInertia().Rotated(RotationMat(NormalizeRotation(pt.Orient)))
+		local := pt.LocalInertia().Rotated(pt.Orient.Normalize().Mat())
 		mp.Inertia = mp.Inertia.Add(local.Shifted(pt.TotalMass(), r3.Sub(pt.Center(), mp.CM)))
 	}
 	// Symmetrise away round-off before the eigen-decomposition.

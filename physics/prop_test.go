@@ -5,7 +5,6 @@ import (
 	"math/rand/v2"
 	"testing"
 
-	"gonum.org/v1/gonum/num/quat"
 	"gonum.org/v1/gonum/spatial/r3"
 )
 
@@ -29,7 +28,7 @@ func TestShifted_ParallelAxis(t *testing.T) {
 func TestRotated(t *testing.T) {
 	b := box(2, 0.2, 0.1, 0.05)
 	I := b.LocalInertia()
-	got := I.Rotated(RotationMat(AxisAngle(r3.Vec{Z: 1}, 45*deg)))
+	got := I.Rotated(AxisAngle(r3.Vec{Z: 1}, 45*deg).Mat())
 	ix, iy := I[0][0], I[1][1]
 	want := Mat3{{(ix + iy) / 2, (ix - iy) / 2, 0}, {(ix - iy) / 2, (ix + iy) / 2, 0}, {0, 0, I[2][2]}}
 	checkMat(t, "R I R^T", got, want, 1e-12)
@@ -94,7 +93,7 @@ func TestPrincipal_Eigen(t *testing.T) {
 
 func randomRotation(rng *rand.Rand) Mat3 {
 	axis := r3.Vec{X: rng.NormFloat64(), Y: rng.NormFloat64(), Z: rng.NormFloat64()}
-	return RotationMat(AxisAngle(axis, rng.Float64()*2*math.Pi))
+	return (AxisAngle(axis, rng.Float64()*2*math.Pi)).Mat()
 }
 
 // TestMassProps_RotationInvariant: turning a whole prop leaves its mass and
@@ -110,7 +109,7 @@ func TestMassProps_RotationInvariant(t *testing.T) {
 		turned := Prop{}
 		for _, pt := range base.Parts {
 			pt.Position = R.MulVec(pt.Position)
-			pt.Orient = NormalizeRotation(quat.Mul(q, pt.Orient))
+			pt.Orient = q.Mul(pt.Orient).Normalize()
 			turned.Parts = append(turned.Parts, pt)
 		}
 		mp := mustMass(t, &turned)

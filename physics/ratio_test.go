@@ -103,7 +103,7 @@ func followAxis(I [3]float64, w r3.Vec, circled Axis, periods, steps int) float6
 	r := newRotor(I)
 	s := body{L: lOf(I, w), Q: IdentityRotation()}
 	T := PolhodePeriod(I, r3.Norm2(s.L), 2*r.energy(s.L))
-	lw := r3.Unit(Rotate(s.Q, s.L))
+	lw := r3.Unit(s.Q.Rotate(s.L))
 	u := r3.Unit(r3.Cross(lw, r3.Vec{X: 0.3, Y: 0.5, Z: 0.7}))
 	v := r3.Cross(lw, u)
 	var e r3.Vec
@@ -114,7 +114,7 @@ func followAxis(I [3]float64, w r3.Vec, circled Axis, periods, steps int) float6
 		e = r3.Vec{Z: 1}
 	}
 	azimuth := func(b body) float64 {
-		ew := Rotate(b.Q, e)
+		ew := b.Q.Rotate(e)
 		return math.Atan2(r3.Dot(ew, v), r3.Dot(ew, u))
 	}
 	n := periods * steps
@@ -172,7 +172,7 @@ func TestExcursion_Take(t *testing.T) {
 		th.FPS = Rate{480, 1}
 		th.Spin = Spin{Axis: Free, Vector: w, Rate: 4 * math.Pi}
 		v := Judge(&mp, &th, DefaultThresholds())
-		pw := RotateInv(RotationFromMat(mp.PrincipalMat()), th.Omega(&mp))
+		pw := (RotationFromMat(mp.PrincipalMat())).RotateInv(th.Omega(&mp))
 		l := lOf(mp.Moments, pw)
 		T := PolhodePeriod(mp.Moments, r3.Norm2(l), r3.Dot(l, pw))
 		if T > 20 {
@@ -192,7 +192,7 @@ func TestExcursion_Take(t *testing.T) {
 		axis := mp.Axes[v.Circles]
 		worst := 0.0
 		for _, f := range take.Frames {
-			wp := RotateInv(f.Orient, f.Omega) // prop frame
+			wp := f.Orient.RotateInv(f.Omega) // prop frame
 			lp := tensor.MulVec(wp)
 			worst = math.Max(worst, math.Acos(math.Min(1, math.Abs(r3.Dot(r3.Unit(lp), axis)))))
 		}

@@ -4,7 +4,6 @@ import (
 	"math"
 
 	"gonum.org/v1/gonum/integrate/quad"
-	"gonum.org/v1/gonum/num/quat"
 	"gonum.org/v1/gonum/spatial/r3"
 )
 
@@ -61,8 +60,8 @@ func gaussTableau() (a [gaussStages][gaussStages]float64, b, c [gaussStages]floa
 
 // body is a rigid body's state in its principal frame.
 type body struct {
-	L r3.Vec      // angular momentum, principal frame, kg m^2/s
-	Q quat.Number // principal frame -> world
+	L r3.Vec   // angular momentum, principal frame, kg m^2/s
+	Q Rotation // principal frame -> world
 }
 
 // rotor integrates torque-free motion for fixed principal moments.
@@ -85,7 +84,7 @@ func (r *rotor) deriv(s body) body {
 	q := s.Q
 	return body{
 		L: r3.Cross(s.L, w),
-		Q: quat.Number{
+		Q: Rotation{
 			Real: -0.5 * (q.Imag*w.X + q.Jmag*w.Y + q.Kmag*w.Z),
 			Imag: 0.5 * (q.Real*w.X + q.Jmag*w.Z - q.Kmag*w.Y),
 			Jmag: 0.5 * (q.Real*w.Y + q.Kmag*w.X - q.Imag*w.Z),
@@ -102,7 +101,7 @@ func flatten(b body) state {
 }
 
 func (s *state) body() body {
-	return body{L: r3.Vec{X: s[0], Y: s[1], Z: s[2]}, Q: quat.Number{Real: s[3], Imag: s[4], Jmag: s[5], Kmag: s[6]}}
+	return body{L: r3.Vec{X: s[0], Y: s[1], Z: s[2]}, Q: Rotation{Real: s[3], Imag: s[4], Jmag: s[5], Kmag: s[6]}}
 }
 
 // f writes the right-hand side at y into d (the same equations as deriv).
@@ -121,7 +120,7 @@ func (r *rotor) f(y *state, d *state) {
 func axpy(s body, h float64, d body) body {
 	return body{
 		L: r3.Vec{X: s.L.X + h*d.L.X, Y: s.L.Y + h*d.L.Y, Z: s.L.Z + h*d.L.Z},
-		Q: quat.Number{Real: s.Q.Real + h*d.Q.Real, Imag: s.Q.Imag + h*d.Q.Imag, Jmag: s.Q.Jmag + h*d.Q.Jmag, Kmag: s.Q.Kmag + h*d.Q.Kmag},
+		Q: Rotation{Real: s.Q.Real + h*d.Q.Real, Imag: s.Q.Imag + h*d.Q.Imag, Jmag: s.Q.Jmag + h*d.Q.Jmag, Kmag: s.Q.Kmag + h*d.Q.Kmag},
 	}
 }
 

@@ -53,7 +53,7 @@ func rk4(r *rotor, s body, t, h float64) body {
 		s = axpy(s, h/3, k2)
 		s = axpy(s, h/3, k3)
 		s = axpy(s, h/6, k4)
-		s.Q = NormalizeRotation(s.Q)
+		s.Q = s.Q.Normalize()
 	}
 	return s
 }
@@ -87,15 +87,15 @@ func TestRotor_Conservation(t *testing.T) {
 		t.Run(c.name, func(t *testing.T) {
 			r := newRotor(c.I)
 			l0 := r3.Vec{X: c.I[0] * c.w.X, Y: c.I[1] * c.w.Y, Z: c.I[2] * c.w.Z}
-			s := body{L: l0, Q: NormalizeRotation(quat.Number{Real: 0.9, Imag: 0.1, Jmag: -0.3, Kmag: 0.2})}
-			e0, n0, lw0 := r.energy(l0), r3.Norm(l0), Rotate(s.Q, l0)
+			s := body{L: l0, Q: Rotation{Real: 0.9, Imag: 0.1, Jmag: -0.3, Kmag: 0.2}.Normalize()}
+			e0, n0, lw0 := r.energy(l0), r3.Norm(l0), s.Q.Rotate(l0)
 			var worstE, worstL, worstQ, worstW float64
 			for range 100 {
 				s = run(&r, s, 0.1)
 				worstE = math.Max(worstE, math.Abs(r.energy(s.L)-e0)/e0)
 				worstL = math.Max(worstL, math.Abs(r3.Norm(s.L)-n0)/n0)
-				worstQ = math.Max(worstQ, math.Abs(quat.Abs(s.Q)-1))
-				worstW = math.Max(worstW, r3.Norm(r3.Sub(Rotate(s.Q, s.L), lw0))/n0)
+				worstQ = math.Max(worstQ, math.Abs(quat.Abs(s.Q.Quat())-1))
+				worstW = math.Max(worstW, r3.Norm(r3.Sub(s.Q.Rotate(s.L), lw0))/n0)
 			}
 			if worstE > 1e-10 || worstL > 1e-10 || worstQ > 1e-12 || worstW > 1e-9 {
 				t.Errorf("drift over 10 s: energy %.2g, |L| %.2g, |q|-1 %.2g, world L %.2g", worstE, worstL, worstQ, worstW)

@@ -10,15 +10,14 @@ import (
 // This file holds the one quaternion convention of the package: a unit
 // quat.Number q maps inner-frame vectors to the outer frame, v' = q v q*.
 
-// Rotation is an orientation or a turn: a unit quaternion (gonum's
-// quat.Number, so gonum's quat functions apply to it unchanged) that maps
-// inner-frame vectors to the outer frame, v' = q v q* ([Rotate]). A part's
-// Orient maps the part frame to the prop frame, a throw's and a frame's
-// Orient the prop frame to the world. q and -q are the same rotation. The
-// helpers below say "rotation" in their names: [IdentityRotation],
-// [AxisAngle], [EulerXYZ], [RotationMat], [RotationFromMat],
-// [NormalizeRotation], [RotationAngle].
-type Rotation = quat.Number
+// Rotation is an orientation or a turn: a unit quaternion that maps
+// inner-frame vectors to the outer frame, v' = q v q* ([Rotation.Rotate]),
+// with its own methods as gonum's r3.Rotation has. A part's Orient maps
+// the part frame to the prop frame, a throw's and a frame's Orient the
+// prop frame to the world. q and -q are the same rotation. Its fields are
+// quat.Number's (Real, Imag, Jmag, Kmag = w, x, y, z); [Rotation.Quat]
+// gives the quaternion for gonum's quat functions.
+type Rotation quat.Number
 
 // identity is the rotation that changes nothing.
 var identity = Rotation{Real: 1}
@@ -45,11 +44,20 @@ func EulerXYZ(rx, ry, rz float64) Rotation {
 	qx := AxisAngle(r3.Vec{X: 1}, rx)
 	qy := AxisAngle(r3.Vec{Y: 1}, ry)
 	qz := AxisAngle(r3.Vec{Z: 1}, rz)
-	return quat.Mul(qz, quat.Mul(qy, qx))
+	return qz.Mul(qy.Mul(qx))
 }
 
+// Quat returns q as a gonum quaternion.
+func (q Rotation) Quat() quat.Number { return quat.Number(q) }
+
+// Mul returns the rotation q r: r first, then q (the quaternion product).
+func (q Rotation) Mul(r Rotation) Rotation { return Rotation(quat.Mul(quat.Number(q), quat.Number(r))) }
+
+// Inverse returns q*, the rotation back (for a unit q).
+func (q Rotation) Inverse() Rotation { return Rotation(quat.Conj(quat.Number(q))) }
+
 // Rotate returns q v q* for a unit quaternion q.
-func Rotate(q Rotation, v r3.Vec) r3.Vec {
+func (q Rotation) Rotate(v r3.Vec) r3.Vec {
 	// v + 2 w (u x v) + 2 u x (u x v), u the vector part.
 	u := r3.Vec{X: q.Imag, Y: q.Jmag, Z: q.Kmag}
 	t := r3.Scale(2, r3.Cross(u, v))
@@ -57,21 +65,21 @@ func Rotate(q Rotation, v r3.Vec) r3.Vec {
 }
 
 // RotateInv returns q* v q, the inverse rotation of v.
-func RotateInv(q Rotation, v r3.Vec) r3.Vec { return Rotate(quat.Conj(q), v) }
+func (q Rotation) RotateInv(v r3.Vec) r3.Vec { return q.Inverse().Rotate(v) }
 
-// NormalizeRotation returns q scaled to unit length. A zero quaternion gives the
+// Normalize returns q scaled to unit length. A zero quaternion gives the
 // identity rather than NaN.
-func NormalizeRotation(q Rotation) Rotation {
-	n := quat.Abs(q)
+func (q Rotation) Normalize() Rotation {
+	n := quat.Abs(quat.Number(q))
 	if n == 0 {
 		return identity
 	}
-	return quat.Scale(1/n, q)
+	return Rotation(quat.Scale(1/n, quat.Number(q)))
 }
 
-// RotationMat returns the 3x3 rotation matrix of a unit quaternion, row major:
-// Rotate(q, v) == RotationMat(q).MulVec(v).
-func RotationMat(q Rotation) Mat3 {
+// Mat returns the 3x3 rotation matrix of a unit quaternion, row major:
+// q.Rotate(v) == q.Mat().MulVec(v).
+func (q Rotation) Mat() Mat3 {
 	w, x, y, z := q.Real, q.Imag, q.Jmag, q.Kmag
 	return Mat3{
 		{1 - 2*(y*y+z*z), 2 * (x*y - w*z), 2 * (x*z + w*y)},
@@ -102,16 +110,16 @@ func RotationFromMat(m Mat3) Rotation {
 		q = Rotation{Real: (m[1][0] - m[0][1]) / s, Imag: (m[0][2] + m[2][0]) / s, Jmag: (m[1][2] + m[2][1]) / s, Kmag: s / 4}
 	}
 	if q.Real < 0 {
-		q = quat.Scale(-1, q)
+		q = Rotation{Real: -q.Real, Imag: -q.Imag, Jmag: -q.Jmag, Kmag: -q.Kmag}
 	}
-	return NormalizeRotation(q)
+	return q.Normalize()
 }
 
 // RotationAngle returns the angle in radians, in [0, pi], of the rotation that
 // takes unit quaternion a to unit quaternion b (the shorter way round).
 func RotationAngle(a, b Rotation) float64 {
 	// 2 atan2(|vec|, |w|) of a* b is better conditioned than 2 acos(d) near 0.
-	r := quat.Mul(quat.Conj(a), b)
+	r := a.Inverse().Mul(b)
 	v := math.Sqrt(r.Imag*r.Imag + r.Jmag*r.Jmag + r.Kmag*r.Kmag)
 	return 2 * math.Atan2(v, math.Abs(r.Real))
 }

@@ -5,7 +5,6 @@ import (
 	"fmt"
 	"math"
 
-	"gonum.org/v1/gonum/num/quat"
 	"gonum.org/v1/gonum/spatial/r3"
 )
 
@@ -80,7 +79,7 @@ func newFlight(p *Prop, mp *MassProps, th *Throw) *flight {
 	f := &flight{th: th, rot: newRotor(mp.Moments), qp: RotationFromMat(mp.PrincipalMat())}
 	for i := range p.Parts {
 		pt := &p.Parts[i]
-		fp := flightPart{part: pt, offset: r3.Sub(pt.Center(), mp.CM), orient: NormalizeRotation(pt.Orient)}
+		fp := flightPart{part: pt, offset: r3.Sub(pt.Center(), mp.CM), orient: pt.Orient.Normalize()}
 		f.parts = append(f.parts, fp)
 		f.reach = math.Max(f.reach, r3.Norm(fp.offset)+pt.Reach())
 	}
@@ -89,14 +88,14 @@ func newFlight(p *Prop, mp *MassProps, th *Throw) *flight {
 
 // initial returns the body state at release.
 func (f *flight) initial(mp *MassProps) body {
-	w := RotateInv(f.qp, f.th.Omega(mp)) // prop frame -> principal frame
+	w := f.qp.RotateInv(f.th.Omega(mp)) // prop frame -> principal frame
 	l := r3.Vec{X: mp.Moments[0] * w.X, Y: mp.Moments[1] * w.Y, Z: mp.Moments[2] * w.Z}
-	return body{L: l, Q: NormalizeRotation(quat.Mul(NormalizeRotation(f.th.Orient), f.qp))}
+	return body{L: l, Q: f.th.Orient.Normalize().Mul(f.qp).Normalize()}
 }
 
 // propOrient returns the prop-frame -> world rotation of body state s.
 func (f *flight) propOrient(s body) Rotation {
-	return NormalizeRotation(quat.Mul(s.Q, quat.Conj(f.qp)))
+	return s.Q.Mul(f.qp.Inverse()).Normalize()
 }
 
 // clearance returns the height of the prop's lowest point above the ground
@@ -108,9 +107,9 @@ func (f *flight) clearance(t float64, s body) float64 {
 	down := r3.Vec{Y: -1}
 	for i := range f.parts {
 		fp := &f.parts[i]
-		qw := quat.Mul(q, fp.orient)
-		u := RotateInv(qw, down) // world down in the part's own frame
-		y := cy + Rotate(q, fp.offset).Y - fp.part.LocalSupport(u)
+		qw := q.Mul(fp.orient)
+		u := qw.RotateInv(down) // world down in the part's own frame
+		y := cy + q.Rotate(fp.offset).Y - fp.part.LocalSupport(u)
 		low = math.Min(low, y)
 	}
 	return low - f.th.GroundY
@@ -155,7 +154,7 @@ func Simulate(p *Prop, mp *MassProps, th *Throw) (*Take, error) {
 	st := stepper{rot: &f.rot, h: h}
 	take := &Take{}
 	appendFrame := func(k int, t float64, b body) {
-		fr := Frame{N: k, Time: t, CM: th.CMAt(t), Orient: f.propOrient(b), Omega: Rotate(b.Q, f.rot.omega(b.L))}
+		fr := Frame{N: k, Time: t, CM: th.CMAt(t), Orient: f.propOrient(b), Omega: b.Q.Rotate(f.rot.omega(b.L))}
 		if k > 0 {
 			prev := &take.Frames[k-1]
 			fr.TurnDeg = st.turned * 180 / math.Pi

@@ -5,7 +5,6 @@ import (
 	"math"
 	"testing"
 
-	"gonum.org/v1/gonum/num/quat"
 	"gonum.org/v1/gonum/spatial/r3"
 )
 
@@ -72,8 +71,8 @@ func corners(p *Part, mp *MassProps, f Frame) []r3.Vec {
 		for _, sy := range []float64{-1, 1} {
 			for _, sz := range []float64{-1, 1} {
 				local := r3.Vec{X: sx * h.X, Y: sy * h.Y, Z: sz * h.Z}
-				inProp := r3.Add(p.Position, Rotate(p.Orient, local))
-				out = append(out, r3.Add(f.CM, Rotate(f.Orient, r3.Sub(inProp, mp.CM))))
+				inProp := r3.Add(p.Position, p.Orient.Rotate(local))
+				out = append(out, r3.Add(f.CM, f.Orient.Rotate(r3.Sub(inProp, mp.CM))))
 			}
 		}
 	}
@@ -112,8 +111,8 @@ func TestTake_LandingBySupport(t *testing.T) {
 	// The orientation at the landing instant, integrated from the last frame.
 	f := newFlight(&p, &mp, &th)
 	last := take.Frames[len(take.Frames)-1]
-	qb := NormalizeRotation(quat.Mul(last.Orient, f.qp)) // principal frame -> world
-	s := body{L: RotateInv(qb, last.Omega), Q: qb}
+	qb := last.Orient.Mul(f.qp).Normalize() // principal frame -> world
+	s := body{L: qb.RotateInv(last.Omega), Q: qb}
 	s.L = r3.Vec{X: mp.Moments[0] * s.L.X, Y: mp.Moments[1] * s.L.Y, Z: mp.Moments[2] * s.L.Z}
 	s = run(&f.rot, s, take.FlightTime-last.Time)
 	land := Frame{CM: th.CMAt(take.FlightTime), Orient: f.propOrient(s)}
@@ -140,7 +139,7 @@ func TestTake_Invariants(t *testing.T) {
 		t.Fatal(err)
 	}
 	worldL := func(f Frame) r3.Vec {
-		R := RotationMat(f.Orient)
+		R := f.Orient.Mat()
 		return mp.Inertia.Rotated(R).MulVec(f.Omega)
 	}
 	l0 := worldL(take.Frames[0])
@@ -226,9 +225,9 @@ func TestSimulate_NeedleFlies(t *testing.T) {
 		t.Fatalf("needle spun at 10 turns/s: %v", err)
 	}
 	f0 := take.Frames[0]
-	lw := mp.Inertia.Rotated(RotationMat(f0.Orient)).MulVec(f0.Omega)
+	lw := mp.Inertia.Rotated(f0.Orient.Mat()).MulVec(f0.Omega)
 	axis := r3.Vec{Z: 1}
-	omegaAxial := r3.Dot(RotateInv(f0.Orient, f0.Omega), axis)
+	omegaAxial := r3.Dot(f0.Orient.RotateInv(f0.Omega), axis)
 	var worst float64
 	for _, f := range take.Frames {
 		want := symmetricTop(f0.Orient, lw, axis, mp.Moments[0], mp.Moments[2], omegaAxial, f.Time)

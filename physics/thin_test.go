@@ -32,10 +32,10 @@ func wireThrow() Throw {
 // (the wobble) while it turns about its own symmetry axis a at psiDot =
 // omega_a (1 - I_a/I_perp) (the Euler-angle spin), so q(t) = exp(phiDot t
 // L^) q0 exp(psiDot t a), with q0 the prop-frame -> world orientation at t = 0.
-func symmetricTop(q0 quat.Number, lWorld r3.Vec, axis r3.Vec, iAxial, iPerp, omegaAxial, t float64) quat.Number {
+func symmetricTop(q0 Rotation, lWorld r3.Vec, axis r3.Vec, iAxial, iPerp, omegaAxial, t float64) Rotation {
 	phiDot := r3.Norm(lWorld) / iPerp
 	psiDot := omegaAxial * (1 - iAxial/iPerp)
-	return quat.Mul(quat.Mul(AxisAngle(lWorld, phiDot*t), q0), AxisAngle(axis, psiDot*t))
+	return ((AxisAngle(lWorld, phiDot*t)).Mul(q0)).Mul(AxisAngle(axis, psiDot*t))
 }
 
 // TestSimulate_ThinWireSpun: a 0.4 mm wire spun end over end flies (no
@@ -57,18 +57,18 @@ func TestSimulate_ThinWireSpun(t *testing.T) {
 		t.Fatalf("flight time %g s, want about 1 s", take.FlightTime)
 	}
 	f0 := take.Frames[0]
-	iw := mp.Inertia.Rotated(RotationMat(f0.Orient))
+	iw := mp.Inertia.Rotated(f0.Orient.Mat())
 	lw := iw.MulVec(f0.Omega)
 	axis := r3.Vec{Z: 1} // the cylinder's own axis, prop frame
 	iAxial, iPerp := mp.Moments[0], mp.Moments[2]
-	omegaAxial := r3.Dot(RotateInv(f0.Orient, f0.Omega), axis)
+	omegaAxial := r3.Dot(f0.Orient.RotateInv(f0.Omega), axis)
 	var worstAngle, worstL, worstQ float64
 	for _, f := range take.Frames {
 		want := symmetricTop(f0.Orient, lw, axis, iAxial, iPerp, omegaAxial, f.Time)
 		worstAngle = math.Max(worstAngle, RotationAngle(f.Orient, want))
-		l := mp.Inertia.Rotated(RotationMat(f.Orient)).MulVec(f.Omega)
+		l := mp.Inertia.Rotated(f.Orient.Mat()).MulVec(f.Omega)
 		worstL = math.Max(worstL, r3.Norm(r3.Sub(l, lw))/r3.Norm(lw))
-		worstQ = math.Max(worstQ, math.Abs(quat.Abs(f.Orient)-1))
+		worstQ = math.Max(worstQ, math.Abs(quat.Abs(f.Orient.Quat())-1))
 	}
 	t.Logf("%d frames: worst angle from the closed form %.3g rad, world L %.3g relative, |q|-1 %.3g", len(take.Frames), worstAngle, worstL, worstQ)
 	// The round-off floor of the problem: one ulp of |L| in L1 turns the
@@ -107,7 +107,7 @@ func TestRotor_JacobianFiniteDifference(t *testing.T) {
 func TestStepper_NewtonMatchesFixedPoint(t *testing.T) {
 	I := [3]float64{1, 2, 3}
 	r := newRotor(I)
-	b := body{L: r3.Vec{X: 0.3, Y: 2, Z: -0.6}, Q: NormalizeRotation(quat.Number{Real: 0.9, Imag: 0.1, Jmag: -0.3, Kmag: 0.2})}
+	b := body{L: r3.Vec{X: 0.3, Y: 2, Z: -0.6}, Q: Rotation{Real: 0.9, Imag: 0.1, Jmag: -0.3, Kmag: 0.2}.Normalize()}
 	h := 0.2 // h |L|/I1 = 0.42
 	fixed := r.step(b, h)
 	st := stepper{rot: &r, h: h}
@@ -138,7 +138,7 @@ func TestRotor_NewtonKeepsInvariants(t *testing.T) {
 	r := newRotor(mp.Moments)
 	w := r3.Vec{X: 25 * math.Sin(3*deg), Z: 25 * math.Cos(3*deg)}
 	l := r3.Vec{X: mp.Moments[0] * w.X, Y: mp.Moments[1] * w.Y, Z: mp.Moments[2] * w.Z}
-	s := body{L: l, Q: NormalizeRotation(quat.Number{Real: 0.9, Imag: 0.1, Jmag: -0.3, Kmag: 0.2})}
+	s := body{L: l, Q: Rotation{Real: 0.9, Imag: 0.1, Jmag: -0.3, Kmag: 0.2}.Normalize()}
 	e0, l0 := r.energy(l), r3.Norm2(l)
 	h := 0.35 / r.fastest(l)
 	if stiff := h * r3.Norm(l) * r.inv[0]; stiff < 1e5 {
@@ -150,7 +150,7 @@ func TestRotor_NewtonKeepsInvariants(t *testing.T) {
 		s = st.next(s)
 		worstE = math.Max(worstE, math.Abs(r.energy(s.L)-e0)/e0)
 		worstL = math.Max(worstL, math.Abs(r3.Norm2(s.L)-l0)/l0)
-		worstQ = math.Max(worstQ, math.Abs(quat.Abs(s.Q)-1))
+		worstQ = math.Max(worstQ, math.Abs(quat.Abs(s.Q.Quat())-1))
 	}
 	t.Logf("1000 steps: energy %.2g, |L|^2 %.2g, |q|-1 %.2g, unsolved %d", worstE, worstL, worstQ, st.unsolved)
 	if worstE > 1e-13 || worstL > 1e-13 || worstQ > 1e-13 || st.unsolved > 0 {

@@ -96,7 +96,7 @@ func (t *Throw) Validate() error {
 	case !finite(t.Spin.Tilt) || math.Abs(t.Spin.Tilt) > math.Pi:
 		return fieldErr("throw.spin.tilt_deg", "must be between -180 and 180 degrees")
 	}
-	if q := t.Orient; !finite(q.Real) || !finite(q.Imag) || !finite(q.Jmag) || !finite(q.Kmag) || quat.Abs(q) == 0 {
+	if q := t.Orient; !finite(q.Real) || !finite(q.Imag) || !finite(q.Jmag) || !finite(q.Kmag) || quat.Abs(q.Quat()) == 0 {
 		return fieldErr("throw.orientation_deg", "must be finite numbers")
 	}
 	if t.Spin.Axis == Free {

@@ -192,12 +192,12 @@ func TestGrowthRate_Numerical(t *testing.T) {
 func measurePrecession(I [3]float64, w r3.Vec, span float64) float64 {
 	r := newRotor(I)
 	s := body{L: lOf(I, w), Q: IdentityRotation()}
-	lw := r3.Unit(Rotate(s.Q, s.L))
+	lw := r3.Unit(s.Q.Rotate(s.L))
 	// Basis of the plane perpendicular to L.
 	u := r3.Unit(r3.Cross(lw, r3.Vec{X: 1}))
 	v := r3.Cross(lw, u)
 	angle := func(b body) float64 {
-		e3 := Rotate(b.Q, r3.Vec{Z: 1})
+		e3 := b.Q.Rotate(r3.Vec{Z: 1})
 		return math.Atan2(r3.Dot(e3, v), r3.Dot(e3, u))
 	}
 	n := 4000
@@ -264,7 +264,7 @@ func TestWobble_Disc(t *testing.T) {
 		t.Errorf("wobbles per Euler turn = %g, want 2", v.WobblesPerEulerTurn)
 	}
 	// Precession from the integration agrees with Judge.
-	w := RotateInv(RotationFromMat(mp.PrincipalMat()), th.Omega(&mp))
+	w := (RotationFromMat(mp.PrincipalMat())).RotateInv(th.Omega(&mp))
 	got := measurePrecession(mp.Moments, w, 1)
 	checkRel(t, "measured precession", got, v.PrecessionRate, integrateTol)
 }

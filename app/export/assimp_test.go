@@ -12,8 +12,6 @@ import (
 	"testing"
 
 	"gonum.org/v1/gonum/spatial/r3"
-
-	"propflight/physics"
 )
 
 // daeSource is one <source> of a COLLADA 1.4.1 animation: its id and the
@@ -89,7 +87,7 @@ func TestGLTF_SurvivesAssimp(t *testing.T) {
 			t.Errorf("key %d translation %v, centre of mass %v", i, p, f.CM)
 		}
 		for j, e := range []r3.Vec{{X: 1}, {Y: 1}, {Z: 1}} {
-			want := physics.Rotate(f.Orient, e) // column j of the rotation
+			want := f.Orient.Rotate(e) // column j of the rotation
 			got := r3.Vec{X: m[j], Y: m[4+j], Z: m[8+j]}
 			if r3.Norm(r3.Sub(got, want)) > 1e-5 {
 				t.Errorf("key %d: column %d of the rotation %v, want %v", i, j, got, want)

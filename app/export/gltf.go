@@ -201,7 +201,7 @@ func animationKeys(in Input) ([]key, error) {
 		if i > 0 {
 			p := keys[i-1].q
 			if p.Real*q.Real+p.Imag*q.Imag+p.Jmag*q.Jmag+p.Kmag*q.Kmag < 0 {
-				q = quat.Scale(-1, q)
+				q = physics.Rotation(quat.Scale(-1, q.Quat())) // the same rotation
 			}
 		}
 		keys[i] = key{t: f.Time, p: f.CM, q: q}
@@ -478,6 +478,6 @@ func unitFloat32(v r3.Vec) r3.Vec {
 }
 
 func unitQuatFloat32(q physics.Rotation) physics.Rotation {
-	q = physics.NormalizeRotation(q)
+	q = q.Normalize()
 	return physics.Rotation{Real: float64(float32(q.Real)), Imag: float64(float32(q.Imag)), Jmag: float64(float32(q.Jmag)), Kmag: float64(float32(q.Kmag))}
 }

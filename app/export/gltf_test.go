@@ -13,7 +13,6 @@ import (
 	"strings"
 	"testing"
 
-	"gonum.org/v1/gonum/num/quat"
 	"gonum.org/v1/gonum/spatial/r3"
 
 	"propflight/physics"
@@ -97,8 +96,8 @@ func TestGLTF_KeysEqualTake(t *testing.T) {
 		if r3.Norm(r3.Sub(p, f.CM)) > 1e-6 {
 			t.Errorf("key %d translation %v, CM %v", i, p, f.CM)
 		}
-		q := quat.Number{Real: rots[4*i+3], Imag: rots[4*i], Jmag: rots[4*i+1], Kmag: rots[4*i+2]}
-		if a := physics.RotationAngle(physics.NormalizeRotation(q), f.Orient); a > 1e-6 {
+		q := physics.Rotation{Real: rots[4*i+3], Imag: rots[4*i], Jmag: rots[4*i+1], Kmag: rots[4*i+2]}
+		if a := physics.RotationAngle(q.Normalize(), f.Orient); a > 1e-6 {
 			t.Errorf("key %d rotation off by %g rad", i, a)
 		}
 	}

@@ -73,7 +73,7 @@ func TestGLTF_MeshPartCarriesItsTriangles(t *testing.T) {
 			face = r3.Cross(r3.Sub(b, a), r3.Sub(c, a))
 		}
 		for j := range 3 {
-			want := r3.Sub(r3.Add(part.Position, physics.Rotate(part.Orient, part.Mesh.V[tr[j]])), in.Mass.CM)
+			want := r3.Sub(r3.Add(part.Position, part.Orient.Rotate(part.Mesh.V[tr[j]])), in.Mass.CM)
 			got := vert(idx[3*k+j])
 			if d := r3.Norm(r3.Sub(got, want)); d > 1e-7 {
 				t.Fatalf("triangle %d corner %d at %v, want %v", k, j, got, want)

@@ -48,13 +48,13 @@ func TestWriteCSVWith_StartFrameAndZUp(t *testing.T) {
 		if c[9] != f.Omega.X || c[10] != -f.Omega.Z || c[11] != f.Omega.Y {
 			t.Errorf("row %d: w %v, want (x, -z, y) of %v", i, c[9:12], f.Omega)
 		}
-		q := quat.Number{Real: c[5], Imag: c[6], Jmag: c[7], Kmag: c[8]}
-		if n := quat.Abs(q); math.Abs(n-1) > 1e-12 {
+		q := physics.Rotation{Real: c[5], Imag: c[6], Jmag: c[7], Kmag: c[8]}
+		if n := quat.Abs(q.Quat()); math.Abs(n-1) > 1e-12 {
 			t.Errorf("row %d: |q| = %v", i, n)
 		}
 		for _, v := range probes {
-			want := ZUpVec(physics.Rotate(f.Orient, v))
-			got := physics.Rotate(q, ZUpVec(v))
+			want := ZUpVec(f.Orient.Rotate(v))
+			got := q.Rotate(ZUpVec(v))
 			if r3.Norm(r3.Sub(got, want)) > 1e-12 {
 				t.Errorf("row %d: R' C v = %v, C R v = %v", i, got, want)
 			}

@@ -77,7 +77,7 @@ func (sf *synthFootage) marks() []mark.Mark {
 	var m []mark.Mark
 	for _, fr := range sf.take.Frames {
 		x, y, _ := lens.Project(fr.CM)
-		x2, y2, _ := lens.Project(r3.Add(fr.CM, physics.Rotate(fr.Orient, sf.lever)))
+		x2, y2, _ := lens.Project(r3.Add(fr.CM, fr.Orient.Rotate(sf.lever)))
 		m = append(m, mark.Mark{Frame: fr.N, X: x, Y: y, HasSecond: true, X2: x2, Y2: y2})
 	}
 	return m

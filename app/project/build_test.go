@@ -79,13 +79,13 @@ func TestBuild_RotationOrderIsXThenYThenZ(t *testing.T) {
 	// under the first turn and goes to y under the second. The other order
 	// (z first) would send it to z.
 	sc := mustBuild(t, withParts(`{"shape": "box", "size": [0.2, 0.1, 0.05], "mass": 2, "rotation_deg": [90, 0, 90]}`))
-	got := physics.Rotate(sc.Prop.Parts[0].Orient, r3.Vec{X: 1})
+	got := sc.Prop.Parts[0].Orient.Rotate(r3.Vec{X: 1})
 	if !nearVec(got, r3.Vec{Y: 1}, closeTol) {
 		t.Errorf("part x maps to %v, want +y", got)
 	}
 	// Likewise orientation_deg [-90, 0, 0] stands the prop's z axis up.
 	sc = mustBuild(t, withThrow(`{"orientation_deg": [-90, 0, 0]}`))
-	if got := physics.Rotate(sc.Throw.Orient, r3.Vec{Z: 1}); !nearVec(got, r3.Vec{Y: 1}, closeTol) {
+	if got := sc.Throw.Orient.Rotate(r3.Vec{Z: 1}); !nearVec(got, r3.Vec{Y: 1}, closeTol) {
 		t.Errorf("orientation_deg [-90,0,0] maps prop z to %v, want +y", got)
 	}
 }

@@ -32,7 +32,7 @@ func TestWrite_MeshProp(t *testing.T) {
 	want := 0.0
 	part := &prop.Parts[0]
 	for _, v := range part.Mesh.V {
-		p := physics.Rotate(part.Orient, v)
+		p := part.Orient.Rotate(v)
 		p.X += part.Position.X - mp.CM.X
 		p.Y += part.Position.Y - mp.CM.Y
 		p.Z += part.Position.Z - mp.CM.Z

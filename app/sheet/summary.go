@@ -210,7 +210,7 @@ func rotationText(q physics.Rotation) string {
 // eulerXYZ returns the angles, degrees, with physics.EulerXYZ(x, y, z) = q
 // (up to sign), y in [-90, 90].
 func eulerXYZ(q physics.Rotation) (x, y, z float64) {
-	m := physics.RotationMat(physics.NormalizeRotation(q))
+	m := q.Normalize().Mat()
 	sy := math.Max(-1, math.Min(1, -m[2][0]))
 	y = math.Asin(sy)
 	if math.Abs(sy) < 1-1e-12 {

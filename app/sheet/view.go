@@ -67,7 +67,7 @@ func viewWords(v PoseView) string {
 // the take, kg m^2/s: R I R^T omega with I the inertia tensor about the
 // centre of mass in prop axes and R the frame's orientation.
 func worldL(mp *physics.MassProps, f *physics.Frame) r3.Vec {
-	r := physics.RotationMat(physics.NormalizeRotation(f.Orient))
+	r := f.Orient.Normalize().Mat()
 	return r.MulVec(mp.Inertia.MulVec(r.T().MulVec(f.Omega)))
 }
 
@@ -123,7 +123,7 @@ func BestPoseView(prop *physics.Prop, mp *physics.MassProps, tk *physics.Take, f
 		sum := 0.0
 		for _, n := range frames {
 			f := &tk.Frames[n]
-			r := physics.RotationMat(physics.NormalizeRotation(f.Orient))
+			r := f.Orient.Normalize().Mat()
 			for i, p := range verts {
 				q := r.MulVec(r3.Sub(p, mp.CM)) // about the centre of mass, world axes
 				pts[i] = [2]float64{r3.Dot(q, right), r3.Dot(q, up)}

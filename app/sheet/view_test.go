@@ -57,7 +57,7 @@ func TestBestPoseView_PlateFaceOn(t *testing.T) {
 			f := &s.tk.Frames[n]
 			verts = verts[:0]
 			for _, p := range plateRim(0.132) { // rim radius plus its tube
-				q := physics.Rotate(f.Orient, p)
+				q := f.Orient.Rotate(p)
 				verts = append(verts, [2]float64{r3.Dot(q, right), r3.Dot(q, up)})
 			}
 			sum += hullArea(verts)

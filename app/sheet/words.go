@@ -208,7 +208,7 @@ func (s *sheet) massItems() []item {
 // rotationWords describes a prop-to-world rotation as an angle about a
 // world axis.
 func rotationWords(q physics.Rotation) string {
-	o := physics.NormalizeRotation(q)
+	o := q.Normalize()
 	v := r3.Vec{X: o.Imag, Y: o.Jmag, Z: o.Kmag}
 	n := r3.Norm(v)
 	angle := 2 * math.Atan2(n, math.Abs(o.Real))

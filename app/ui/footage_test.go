@@ -95,7 +95,7 @@ func (c *testClip) clicks(k int) (x, y, x2, y2 float64) {
 	fr := c.take.Frames[k]
 	lens := c.cam.Lens()
 	px, py, _ := lens.Project(fr.CM)
-	qx, qy, _ := lens.Project(r3.Add(fr.CM, physics.Rotate(fr.Orient, c.lever)))
+	qx, qy, _ := lens.Project(r3.Add(fr.CM, fr.Orient.Rotate(c.lever)))
 	pix := func(v float64) float64 { return math.Floor(v) + 0.5 }
 	return pix(px), pix(py), pix(qx), pix(qy)
 }

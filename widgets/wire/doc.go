@@ -9,7 +9,7 @@
 //   - World: right-handed, +Y up, metres (glTF 2.0). The ground is the
 //     plane y = Scene.GroundY.
 //   - Prop frame: the frame the parts are authored in. A take's frame puts
-//     a prop-frame point p at Frame.CM + Rotate(Frame.Orient, p - Mass.CM).
+//     a prop-frame point p at Frame.CM + Frame.Orient.Rotate(p - Mass.CM).
 //   - Part frame: origin at the part's own centre of mass, axes those of
 //     the part; PartMesh works in it and PropMesh places parts by their
 //     Orient and Position.

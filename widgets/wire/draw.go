@@ -88,7 +88,7 @@ type Drawing struct {
 // Scene is what Draw shows.
 //
 // The prop at frame F is placed by the take: a prop-frame point p goes to
-// the world point Frame.CM + Rotate(Frame.Orient, p - Mass.CM). With no
+// the world point Frame.CM + Frame.Orient.Rotate(p - Mass.CM). With no
 // take the prop stands in its authored pose with the prop frame on the
 // world (so its centre of mass is at Mass.CM) and there is no arc and no
 // onion skin. Frame is clamped to the take's frames.
@@ -300,13 +300,13 @@ func bounds(sc Scene, mp *physics.MassProps, pw *propWire) r3.Box {
 // rotation matrix at frame i; with no frames, the authored pose.
 func pose(frames []physics.Frame, i int, mp *physics.MassProps) (r3.Vec, physics.Mat3) {
 	if i >= 0 && i < len(frames) {
-		return frames[i].CM, physics.RotationMat(physics.NormalizeRotation(frames[i].Orient))
+		return frames[i].CM, (frames[i].Orient.Normalize()).Mat()
 	}
 	var cm r3.Vec
 	if mp != nil {
 		cm = mp.CM
 	}
-	return cm, physics.RotationMat(physics.IdentityRotation())
+	return cm, physics.IdentityRotation().Mat()
 }
 
 // onionAlpha is the opacity of the onion-skin frame k away of n.
@@ -349,7 +349,7 @@ func newPropWire(p *physics.Prop, mp *physics.MassProps, detail int) *propWire {
 	pw := &propWire{}
 	for i := range p.Parts {
 		pt := &p.Parts[i]
-		r := physics.RotationMat(physics.NormalizeRotation(pt.Orient))
+		r := pt.Orient.Normalize().Mat()
 		pos := r3.Sub(pt.Position, mp.CM)
 		if o := partOutline(pt); o != nil {
 			// A mesh part: its creases are fixed lines, its contour is

@@ -30,9 +30,9 @@ func near2(a, b [2]float64, tol float64) bool {
 
 // placed is the slow placement oracle: the world position of prop-frame
 // point p at take frame f, through quaternions, as the package doc states:
-// CM + Rotate(Orient, p - mass.CM).
+// CM + Orient.Rotate(p - mass.CM).
 func placed(f *physics.Frame, mp *physics.MassProps, p r3.Vec) r3.Vec {
-	return r3.Add(f.CM, physics.Rotate(f.Orient, r3.Sub(p, mp.CM)))
+	return r3.Add(f.CM, f.Orient.Rotate(r3.Sub(p, mp.CM)))
 }
 
 // framedCamera frames the whole scene so nothing is cut at the image edge.
@@ -58,7 +58,7 @@ func TestDraw_PartSegments_PlacedByTake(t *testing.T) {
 			for _, e := range m.Edges {
 				var ends [2][2]float64
 				for k, vi := range e {
-					pp := r3.Add(pt.Position, physics.Rotate(pt.Orient, m.Vertices[vi]))
+					pp := r3.Add(pt.Position, pt.Orient.Rotate(m.Vertices[vi]))
 					x, y, ok := cam.Project(placed(f, sc.Mass, pp))
 					if !ok {
 						t.Fatal("prop vertex behind the camera")
@@ -266,7 +266,7 @@ func TestDraw_Axes_FromCentreOfMass(t *testing.T) {
 			t.Errorf("%v starts at %v, centre of mass at (%g, %g)", k, s[0].A, cx, cy)
 		}
 		// The tip lies on the projection of the world axis direction.
-		ax, ay, _ := cam.Project(r3.Add(f.CM, r3.Scale(0.01, physics.Rotate(f.Orient, sc.Mass.Axes[i]))))
+		ax, ay, _ := cam.Project(r3.Add(f.CM, r3.Scale(0.01, f.Orient.Rotate(sc.Mass.Axes[i]))))
 		u := [2]float64{ax - cx, ay - cy}
 		v := [2]float64{s[0].B[0] - cx, s[0].B[1] - cy}
 		if c := u[0]*v[1] - u[1]*v[0]; math.Abs(c) > 1e-6*math.Hypot(u[0], u[1])*math.Hypot(v[0], v[1]) || u[0]*v[0]+u[1]*v[1] < 0 {

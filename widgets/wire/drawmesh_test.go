@@ -42,7 +42,7 @@ func TestDraw_MeshBoxEqualsBox(t *testing.T) {
 		{Name: "box", Shape: physics.Box, Size: size, Mass: 1, Position: pos, Orient: q}, handle}}
 	meshed := &physics.Prop{Parts: []physics.Part{
 		{Name: "box", Shape: physics.MeshShape, Mesh: &mesh.Mesh{V: v, T: tr}, Mass: 1,
-			Position: r3.Sub(pos, physics.Rotate(q, off)), Orient: q}, handle}}
+			Position: r3.Sub(pos, q.Rotate(off)), Orient: q}, handle}}
 	mpA, err := prim.MassProps()
 	if err != nil {
 		t.Fatal(err)

@@ -87,7 +87,7 @@ func PartMesh(p *physics.Part, detail int) Mesh {
 }
 
 // PropMesh returns the meshes of all the prop's parts placed in the prop
-// frame: a part vertex v goes to Position + Rotate(Orient, v) and its normal
+// frame: a part vertex v goes to Position + Orient.Rotate(v) and its normal
 // is turned by Orient. Parts keep their order; their triangles and edges
 // index into the one vertex list.
 func PropMesh(p *physics.Prop, detail int) Mesh {
@@ -95,8 +95,8 @@ func PropMesh(p *physics.Prop, detail int) Mesh {
 	for i := range p.Parts {
 		pt := &p.Parts[i]
 		m := PartMesh(pt, detail)
-		q := physics.NormalizeRotation(pt.Orient)
-		r := physics.RotationMat(q)
+		q := pt.Orient.Normalize()
+		r := q.Mat()
 		base := uint32(len(out.Vertices))
 		for j, v := range m.Vertices {
 			out.Vertices = append(out.Vertices, r3.Add(pt.Position, r.MulVec(v)))

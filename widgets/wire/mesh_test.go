@@ -277,7 +277,7 @@ func TestPartMesh_BadInput(t *testing.T) {
 }
 
 // TestPropMesh_PlacesParts: a part vertex v lands on Position +
-// Rotate(Orient, v), computed here through the quaternion rather than the
+// Orient.Rotate(v), computed here through the quaternion rather than the
 // matrix PropMesh uses; normals turn with it.
 func TestPropMesh_PlacesParts(t *testing.T) {
 	parts := testParts()
@@ -292,11 +292,11 @@ func TestPropMesh_PlacesParts(t *testing.T) {
 	for i := range parts {
 		m := wire.PartMesh(&parts[i], 16)
 		for j, v := range m.Vertices {
-			want := r3.Add(parts[i].Position, physics.Rotate(parts[i].Orient, v))
+			want := r3.Add(parts[i].Position, parts[i].Orient.Rotate(v))
 			if d := r3.Norm(r3.Sub(pm.Vertices[k], want)); d > 1e-12 {
 				t.Fatalf("part %s vertex %d: %v, want %v", parts[i].Name, j, pm.Vertices[k], want)
 			}
-			if d := r3.Norm(r3.Sub(pm.Normals[k], physics.Rotate(parts[i].Orient, m.Normals[j]))); d > 1e-12 {
+			if d := r3.Norm(r3.Sub(pm.Normals[k], parts[i].Orient.Rotate(m.Normals[j]))); d > 1e-12 {
 				t.Fatalf("part %s normal %d off by %g", parts[i].Name, j, d)
 			}
 			k++
