@@ -2,6 +2,7 @@ package footage
 
 import (
 	"bufio"
+	"cmp"
 	"fmt"
 	"image"
 	"image/color"
@@ -269,7 +270,7 @@ func naturalCompare(a, b string) int {
 			da := strings.TrimLeft(a[si:i], "0")
 			db := strings.TrimLeft(b[sj:j], "0")
 			if len(da) != len(db) {
-				return cmpInt(len(da), len(db))
+				return cmp.Compare(len(da), len(db))
 			}
 			if c := strings.Compare(da, db); c != 0 {
 				return c
@@ -278,12 +279,12 @@ func naturalCompare(a, b string) int {
 		}
 		la, lb := lower(ca), lower(cb)
 		if la != lb {
-			return cmpInt(int(la), int(lb))
+			return cmp.Compare(int(la), int(lb))
 		}
 		i++
 		j++
 	}
-	if c := cmpInt(len(a)-i, len(b)-j); c != 0 {
+	if c := cmp.Compare(len(a)-i, len(b)-j); c != 0 {
 		return c
 	}
 	return strings.Compare(a, b)
@@ -296,14 +297,4 @@ func lower(c byte) byte {
 		return c + 'a' - 'A'
 	}
 	return c
-}
-
-func cmpInt(a, b int) int {
-	switch {
-	case a < b:
-		return -1
-	case a > b:
-		return 1
-	}
-	return 0
 }

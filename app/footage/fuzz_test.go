@@ -2,6 +2,7 @@ package footage
 
 import (
 	"bytes"
+	"cmp"
 	"errors"
 	"slices"
 	"testing"
@@ -42,7 +43,7 @@ func FuzzParseMarks(f *testing.F) {
 			t.Fatalf("written marks do not parse: %v\n%s", err, buf.Bytes())
 		}
 		want := slices.Clone(marks)
-		slices.SortFunc(want, func(a, b mark.Mark) int { return cmpInt(a.Frame, b.Frame) })
+		slices.SortFunc(want, func(a, b mark.Mark) int { return cmp.Compare(a.Frame, b.Frame) })
 		if !slices.Equal(back, want) {
 			t.Fatalf("round trip changed the marks:\n got %+v\nwant %+v", back, want)
 		}

@@ -2,6 +2,7 @@ package footage
 
 import (
 	"bufio"
+	"cmp"
 	"encoding/csv"
 	"errors"
 	"fmt"
@@ -224,7 +225,7 @@ func checkMark(m mark.Mark) *Error {
 // mark ParseMarks would refuse or a frame marked twice.
 func sortedMarks(marks []mark.Mark) ([]mark.Mark, error) {
 	s := slices.Clone(marks)
-	slices.SortStableFunc(s, func(a, b mark.Mark) int { return cmpInt(a.Frame, b.Frame) })
+	slices.SortStableFunc(s, func(a, b mark.Mark) int { return cmp.Compare(a.Frame, b.Frame) })
 	for i, m := range s {
 		if e := checkMark(m); e != nil {
 			return nil, e
