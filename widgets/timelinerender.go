@@ -56,16 +56,10 @@ func (r *timelineRenderer) tick() *canvas.Line {
 	return r.ticks[r.nTicks-1]
 }
 
-func (r *timelineRenderer) label() *canvas.Text {
-	if r.nLabel == len(r.labels) {
-		r.labels = append(r.labels, canvas.NewText("", color.Transparent))
-	}
-	r.nLabel++
-	l := r.labels[r.nLabel-1]
-	l.TextSize = labelSize
-	return l
-}
+// label returns the next pooled frame-number label.
+func (r *timelineRenderer) label() *canvas.Text { return nextText(&r.labels, &r.nLabel) }
 
+// flag returns the next pooled pole and pennant.
 func (r *timelineRenderer) flag() (*canvas.Line, *canvas.Rectangle) {
 	if r.nFlags == len(r.poles) {
 		r.poles = append(r.poles, canvas.NewLine(color.Transparent))
@@ -75,12 +69,17 @@ func (r *timelineRenderer) flag() (*canvas.Line, *canvas.Rectangle) {
 	return r.poles[r.nFlags-1], r.flags[r.nFlags-1]
 }
 
-func (r *timelineRenderer) flagLabel() *canvas.Text {
-	if r.nFlagT == len(r.flagText) {
-		r.flagText = append(r.flagText, canvas.NewText("", color.Transparent))
+// flagLabel returns the next pooled flag label.
+func (r *timelineRenderer) flagLabel() *canvas.Text { return nextText(&r.flagText, &r.nFlagT) }
+
+// nextText returns text *n of pool at labelSize, adding one to the pool
+// when all are in use, and counts it used.
+func nextText(pool *[]*canvas.Text, n *int) *canvas.Text {
+	if *n == len(*pool) {
+		*pool = append(*pool, canvas.NewText("", color.Transparent))
 	}
-	r.nFlagT++
-	l := r.flagText[r.nFlagT-1]
+	*n++
+	l := (*pool)[*n-1]
 	l.TextSize = labelSize
 	return l
 }
