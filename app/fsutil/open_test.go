@@ -7,36 +7,24 @@ import (
 	"os"
 	"path/filepath"
 	"strings"
-	"syscall"
 	"testing"
-	"time"
+
+	"propflight/internal/pipetest"
 )
 
-// openSoon runs OpenRegular on another goroutine and fails the test if it
-// has not returned after a long while: the bug this guards against is an
-// open that never returns (a hang guard, not a speed check).
+// openSoon runs OpenRegular on path under the hang guard of the pipe
+// (the bug it guards against is an open that never returns).
 func openSoon(t *testing.T, path string) (*os.File, error) {
 	t.Helper()
 	type result struct {
 		f   *os.File
 		err error
 	}
-	done := make(chan result, 1)
-	go func() {
+	r := pipetest.Within(t, path, func() result {
 		f, err := OpenRegular(path)
-		done <- result{f, err}
-	}()
-	select {
-	case r := <-done:
-		return r.f, r.err
-	case <-time.After(30 * time.Second):
-		// Unblock the stuck open by opening the pipe's other end.
-		if w, err := os.OpenFile(path, os.O_WRONLY|syscall.O_NONBLOCK, 0); err == nil {
-			defer w.Close()
-		}
-		t.Fatalf("OpenRegular(%s) did not return", path)
-		return nil, nil
-	}
+		return result{f, err}
+	})
+	return r.f, r.err
 }
 
 func TestOpenRegular(t *testing.T) {
@@ -45,10 +33,7 @@ func TestOpenRegular(t *testing.T) {
 	if err := os.WriteFile(file, []byte("{}"), 0o644); err != nil {
 		t.Fatal(err)
 	}
-	fifo := filepath.Join(dir, "pipe.json")
-	if err := syscall.Mkfifo(fifo, 0o644); err != nil {
-		t.Skipf("cannot make a named pipe: %v", err)
-	}
+	fifo := pipetest.Make(t, dir, "pipe.json")
 	link := filepath.Join(dir, "link.json")
 	if err := os.Symlink(file, link); err != nil {
 		t.Fatal(err)
