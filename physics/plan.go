@@ -259,8 +259,16 @@ func PlanLanding(ctx context.Context, p *Prop, mp *MassProps, th *Throw, spec Pl
 		plan.FlightTime = pl.tEnd
 	case plan.Best() >= 0:
 		plan.FlightTime = plan.Solutions[plan.Best()].FlightTime
-	default:
+	case th.Spin.Rate <= spec.RateMax:
 		plan.FlightTime, _ = pl.end(th.Spin.Rate)
+	default:
+		// The throw's own rate lies above the range the scaled motion
+		// covers: fly it in real time, as Simulate does.
+		t, _, err := pl.f.flyToEnd(pl.f.initial(mp), spec.End)
+		if err != nil {
+			return nil, err
+		}
+		plan.FlightTime = t
 	}
 	return plan, nil
 }

@@ -261,3 +261,52 @@ func TestCatchTime(t *testing.T) {
 		t.Error("a downward throw caught at its release height must be refused")
 	}
 }
+
+// TestPlan_FlightTimeOutsideRange: with no solution, a ground landing's
+// FlightTime is the throw's own; when the throw's rate lies above the
+// searched range it must still agree with Simulate (the slow, obvious
+// oracle), not come from one long step past the end of the plan's scaled
+// motion (it was 6 ms short for this tumbling brick).
+func TestPlan_FlightTimeOutsideRange(t *testing.T) {
+	p, mp, th := brickThrow(1.2)
+	th.Spin = Spin{Axis: Middle, Tilt: 0.05, TiltToward: Least, Rate: 9 * turn}
+	spec := PlanSpec{Target: Target{Axis: r3.Vec{X: 1}, Dir: r3.Vec{Z: 1}},
+		Tolerance: 0.01 * deg, RateMin: 0.25 * turn, RateMax: 1 * turn}
+	plan, err := PlanLanding(context.Background(), &p, &mp, &th, spec)
+	if err != nil {
+		t.Fatal(err)
+	}
+	if len(plan.Solutions) != 0 {
+		t.Fatalf("want no solution, got %d", len(plan.Solutions))
+	}
+	take, err := Simulate(&p, &mp, &th)
+	if err != nil {
+		t.Fatal(err)
+	}
+	if d := math.Abs(plan.FlightTime - take.FlightTime); d > 1e-9 {
+		t.Errorf("plan flight time %.12g s, take %.12g s (off by %.3g s)", plan.FlightTime, take.FlightTime, d)
+	}
+}
+
+// TestScaledMotion_PastEnd: a phase past the motion's last checkpoint is
+// reached by steps of the motion's own size, so it agrees with a motion
+// built long enough to hold it (both the step rule of Simulate), instead of
+// one Gauss step many times too long.
+func TestScaledMotion_PastEnd(t *testing.T) {
+	I := [3]float64{1, 2, 3}
+	rot := newRotor(I)
+	s0 := body{L: lOf(I, r3.Unit(r3.Vec{X: 0.1, Y: 1, Z: 0.2})), Q: identity}
+	short, ok1 := newScaledMotion(rot, s0, 1)
+	long, ok2 := newScaledMotion(rot, s0, 12)
+	if !ok1 || !ok2 {
+		t.Fatal("motion refused")
+	}
+	const phase = 10.3
+	a, b := short.at(phase), long.at(phase)
+	if d := RotationAngle(a.Q, b.Q); d > 1e-9 {
+		t.Errorf("past the end: orientation off by %.3g rad", d)
+	}
+	if d := r3.Norm(r3.Sub(a.L, b.L)); d > 1e-9 {
+		t.Errorf("past the end: L off by %.3g", d)
+	}
+}

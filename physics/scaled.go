@@ -43,12 +43,21 @@ func newScaledMotion(rot rotor, s0 body, maxPhase float64) (*scaledMotion, bool)
 }
 
 // at returns the unit-rate state at phase s >= 0: the checkpoint at or
-// below s carried forward by one Gauss step of less than h.
+// below s carried forward by one Gauss step of less than h. Past the last
+// checkpoint (a phase the motion was not built for) it is carried forward
+// by whole steps of h and one shorter step, slow but as accurate.
 func (m *scaledMotion) at(s float64) body {
 	k := int(s / m.h)
 	k = max(0, min(k, len(m.pts)-1))
 	b := m.pts[k]
-	if ds := s - float64(k)*m.h; ds != 0 {
+	ds := s - float64(k)*m.h
+	if ds > m.h {
+		st := stepper{rot: &m.rot, h: m.h}
+		for ; ds > m.h; ds -= m.h {
+			b = st.next(b)
+		}
+	}
+	if ds != 0 {
 		b = m.rot.step(b, ds)
 	}
 	return b
