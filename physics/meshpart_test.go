@@ -118,6 +118,10 @@ func TestMeshPart_Validate(t *testing.T) {
 		{Part{Shape: MeshShape, Mass: 1, Orient: IdentityRotation()}, "file"},
 		{Part{Shape: MeshShape, Mesh: m, Mass: 1, Wall: -0.001, Orient: IdentityRotation()}, "wall_m"},
 		{Part{Shape: MeshShape, Mesh: m, Mass: 1, Wall: math.NaN(), Orient: IdentityRotation()}, "wall_m"},
+		// A wall of 5 m on a 1 m cube: area times wall (30 m^3) is far more
+		// than the solid's 1 m^3; the most is volume / area = 1/6 m.
+		{Part{Shape: MeshShape, Mesh: m, Mass: 1, Wall: 5, Orient: IdentityRotation()}, "wall_m"},
+		{Part{Shape: MeshShape, Mesh: m, Density: 1000, Wall: 0.17, Orient: IdentityRotation()}, "wall_m"},
 		{Part{Shape: MeshShape, Mesh: m, Orient: IdentityRotation()}, "mass"},
 	} {
 		fe, ok := c.part.Validate().(*FieldError)
@@ -127,6 +131,9 @@ func TestMeshPart_Validate(t *testing.T) {
 	}
 	if err := (&Part{Shape: MeshShape, Mesh: m, Density: 1000, Wall: 0.002, Orient: IdentityRotation()}).Validate(); err != nil {
 		t.Errorf("thin wall with density: %v", err)
+	}
+	if err := (&Part{Shape: MeshShape, Mesh: m, Density: 1000, Wall: 0.16, Orient: IdentityRotation()}).Validate(); err != nil {
+		t.Errorf("wall just under volume / area: %v", err)
 	}
 }
 

@@ -155,6 +155,14 @@ func (p *Part) Validate() error {
 		if p.Wall != 0 && !finitePos(p.Wall) {
 			return fieldErr("wall_m", "must be positive (or left out for a solid part)")
 		}
+		// A thin wall holds area times thickness of material; past
+		// volume / area it holds more than the solid itself, so the
+		// hollow prop would outweigh the solid one.
+		if p.Wall > 0 {
+			if most := p.Mesh.Solid().Measure / p.Mesh.Surface().Measure; p.Wall > most {
+				return fieldErr("wall_m", "%g m is too thick for this mesh: at most %.3g m (volume / area, where the wall would hold as much as the solid)", p.Wall, most)
+			}
+		}
 	default:
 		return fieldErr("shape", "unknown shape %d", int(p.Shape))
 	}

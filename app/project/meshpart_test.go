@@ -83,18 +83,19 @@ func TestMeshPart_Crate(t *testing.T) {
 }
 
 // TestMeshPart_UnitsUpWall: cm scales lengths, up z turns the file, wall_m
-// makes the crate hollow: mass = density x area x wall.
+// makes the crate hollow: mass = density x area x wall (0.2 mm: under the
+// crate's volume / area, 0.46 mm, past which the wall is refused).
 func TestMeshPart_UnitsUpWall(t *testing.T) {
 	dir := t.TempDir()
 	writeFile(t, filepath.Join(dir, "crate.obj"), crateOBJ(0, false))
 	p := writeFile(t, filepath.Join(dir, "p.json"), `{"format": "propflight/v1", "prop": {"parts": [
-		{"shape": "mesh", "file": "crate.obj", "units": "cm", "up": "z", "density": 500, "wall_m": 0.001}]}}`)
+		{"shape": "mesh", "file": "crate.obj", "units": "cm", "up": "z", "density": 500, "wall_m": 0.0002}]}}`)
 	_, sc, err := loadBuild(t, p)
 	if err != nil {
 		t.Fatal(err)
 	}
 	area := 2 * (0.4*0.3 + 0.4*0.2 + 0.3*0.2) * 1e-4 // cm² to m²
-	if want := 500 * area * 0.001; math.Abs(sc.Mass.Mass-want) > 1e-12*want {
+	if want := 500 * area * 0.0002; math.Abs(sc.Mass.Mass-want) > 1e-12*want {
 		t.Errorf("mass %g, want %g", sc.Mass.Mass, want)
 	}
 	// Up z: the file's z (0.2 cm) is now along y and its y (0.3 cm) along
