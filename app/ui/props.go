@@ -464,6 +464,10 @@ func (p *propPanel) setResult(res editor.Result) {
 	}
 	p.factsFrom(res)
 	mp := res.Scene.Mass
-	p.summary.SetText(fmt.Sprintf("%d parts, %s kg in all; centre of mass (%s, %s, %s) m.",
-		len(res.Scene.Prop.Parts), sig(mp.Mass), fixed(mp.CM.X), fixed(mp.CM.Y), fixed(mp.CM.Z)))
+	n, parts := len(res.Scene.Prop.Parts), "parts"
+	if n == 1 {
+		parts = "part"
+	}
+	p.summary.SetText(fmt.Sprintf("%d %s, %s kg in all; centre of mass (%s, %s, %s) m.",
+		n, parts, sig(mp.Mass), fixed(mp.CM.X), fixed(mp.CM.Y), fixed(mp.CM.Z)))
 }

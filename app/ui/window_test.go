@@ -764,3 +764,14 @@ func TestWindow_SaveAs_NameWithoutJSON_AsksBeforeReplacing(t *testing.T) {
 		t.Errorf("the folder holds %d entries, want only pan.json", len(entries))
 	}
 }
+
+// TestWindow_PartSummary_Counts: the summary under the part list says
+// "1 part" for a one-part prop (the ladle) and "3 parts" for the pan.
+func TestWindow_PartSummary_Counts(t *testing.T) {
+	for preset, want := range map[string]string{"ladle": "1 part, ", "frying-pan": "3 parts, "} {
+		w := newTestWindow(t, preset)
+		if got := w.props.summary.Text; !strings.HasPrefix(got, want) {
+			t.Errorf("%s: summary %q, want it to start %q", preset, got, want)
+		}
+	}
+}
