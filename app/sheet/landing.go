@@ -208,7 +208,7 @@ func (s *sheet) landingScatter(x, y, w, h float64, sp *physics.Spread) {
 	s.font("", sizeSmall-1)
 	ink(p, inkSoft)
 	p.SetXY(gx, gy+gh+0.5)
-	p.CellFormat(gw, 3.5, "frame "+fixed(span/1.15, 3)+" m across the points", "", 0, "L", false, 0, "")
+	p.CellFormat(gw, 3.5, "the landing points span "+fixed(span/1.15, 3)+" m (the larger of x and z)", "", 0, "L", false, 0, "")
 }
 
 // ErrorBins counts a spread's landing errors in n equal bins from 0 to 180

@@ -46,10 +46,16 @@ func TestWrite_LandingPage(t *testing.T) {
 	for _, s := range plan.Solutions {
 		want = append(want, fixed(s.Rate/(2*math.Pi), 4), fixed(s.WindowLo/(2*math.Pi), 4)+"–"+fixed(s.WindowHi/(2*math.Pi), 4))
 	}
+	// The scatter's caption gives the points' extent in plain words; a
+	// "frame" here would read as an animation frame.
+	want = append(want, "the landing points span ")
 	for _, w := range want {
 		if !strings.Contains(text, w) {
 			t.Errorf("landing page lacks %q:\n%s", w, text)
 		}
+	}
+	if strings.Contains(text, "m across the points") {
+		t.Errorf("scatter caption still reads \"frame ... m across the points\":\n%s", text)
 	}
 }
 
