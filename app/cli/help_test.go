@@ -113,3 +113,18 @@ func TestHelp_ViewDefaultIsWhatExportUses(t *testing.T) {
 		t.Error("fit is not a command of the one parser")
 	}
 }
+
+// TestHelp_ToleranceRange: the page's range for --tolerance-deg is the one
+// the flag takes: 0 is refused, so the page must not offer "0 to 180".
+func TestHelp_ToleranceRange(t *testing.T) {
+	code, _, errs := run(t, "plan", "--preset", "frying-pan", "--land", "greatest:up", "--tolerance-deg", "0")
+	if code != 2 || !strings.Contains(errs, "--tolerance-deg") {
+		t.Fatalf("--tolerance-deg 0: exit %d, %q; want 2 naming the flag", code, errs)
+	}
+	for _, name := range []string{"plan", "spread", "sheet"} {
+		page := HelpPage(name)
+		if strings.Contains(page, "(0 to 180)") || !strings.Contains(page, "(over 0, up to 180)") {
+			t.Errorf("%s: --tolerance-deg's range is not \"over 0, up to 180\":\n%s", name, page)
+		}
+	}
+}

@@ -21,7 +21,7 @@ var (
 	catchFlag = &Flag{Name: "--catch-height", Value: "Y", Kind: Number,
 		Help: "end when the centre of mass comes down through Y m, not at ground contact"}
 	toleranceFlag = &Flag{Name: "--tolerance-deg", Value: "T", Kind: Number, Default: "10",
-		Help: "largest landing error that counts, degrees (0 to 180)"}
+		Help: "largest landing error that counts, degrees (over 0, up to 180)"}
 )
 
 // landArg is a parsed --land AXIS:DIR.
