@@ -351,7 +351,19 @@ func (p *propPanel) factsFrom(res editor.Result) {
 			amount = "surface " + meshNumber(area) + " m²"
 		}
 	}
-	p.meshFacts.SetText(fmt.Sprintf("%d triangles, %s, %s.", triangles, size, amount))
+	text := fmt.Sprintf("%d triangles, %s, %s.", triangles, size, amount)
+	// The project's notes on this part (a size that suggests the wrong
+	// units, faces turned outward), as check prints them.
+	prefix := fmt.Sprintf("prop.parts[%d].", i)
+	for _, n := range res.Scene.Notes {
+		if rest, ok := strings.CutPrefix(n, prefix); ok {
+			if _, msg, ok := strings.Cut(rest, ": "); ok {
+				rest = msg
+			}
+			text += "\nNote: " + rest + "."
+		}
+	}
+	p.meshFacts.SetText(text)
 }
 
 // meshNumber writes x with three significant figures and no exponent

@@ -165,3 +165,28 @@ func TestWindow_AddMeshChoice_AsksForAFile(t *testing.T) {
 		t.Errorf("choosing %q changed the project or stayed selected", meshChoice)
 	}
 }
+
+// TestWindow_MeshUnitsNote_Shown: a model read in units that make it 1 mm
+// across gets the project's "check units" note under the mesh's facts, as
+// check prints it; back in metres the note goes.
+func TestWindow_MeshUnitsNote_Shown(t *testing.T) {
+	w := newTestWindow(t, "frying-pan")
+	w.props.addMeshFile(writeFile(t, "crate.obj", cubeOBJ(1, false)))
+	if w.props.units == nil || w.props.units.Selected != "m" {
+		t.Fatalf("units %v, want m for a cube 1 unit across", w.props.units)
+	}
+	if strings.Contains(w.props.meshFacts.Text, "check units") {
+		t.Errorf("a 1 m cube has a units note: %q", w.props.meshFacts.Text)
+	}
+	w.props.units.SetSelected("mm")
+	if w.result.Err != nil {
+		t.Fatalf("units mm: %v", w.result.Err)
+	}
+	if got := w.props.meshFacts.Text; !strings.Contains(got, "small for a thrown prop: check units") {
+		t.Errorf("a 1 mm cube: mesh facts %q lack the units note", got)
+	}
+	w.props.units.SetSelected("m")
+	if strings.Contains(w.props.meshFacts.Text, "check units") {
+		t.Errorf("back in metres the note stays: %q", w.props.meshFacts.Text)
+	}
+}
