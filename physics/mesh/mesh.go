@@ -52,6 +52,9 @@ const MaxTriangles = 50_000_000
 //     greater than one (non-manifold), or by two faces the same way (a
 //     flipped face): error
 //   - wound inward throughout (negative volume): turned outward, with a note
+//   - a shell wound inward that lies inside no other shell (so it is no
+//     cavity): turned outward, with a note; an inward shell inside another
+//     stays a cavity (shells.go)
 //   - zero enclosed volume (a flat closed surface): error
 //
 // It stays one function, long as it is: the checks run in the order of the
@@ -128,7 +131,8 @@ func New(tris [][3]r3.Vec) (*Mesh, []string, error) {
 	if !(math.Abs(s.Measure)/e/e/e > 1e-12) {
 		return nil, nil, errors.New("encloses no volume: the surface is flat")
 	}
-	if s.Measure < 0 {
+	global := s.Measure < 0
+	if global {
 		for i := range m.T {
 			m.T[i][1], m.T[i][2] = m.T[i][2], m.T[i][1]
 		}
@@ -139,12 +143,33 @@ func New(tris [][3]r3.Vec) (*Mesh, []string, error) {
 				s.Inertia[i][j] = -s.Inertia[i][j]
 			}
 		}
-		notes = append(notes, "wound inward throughout: turned outward (the same solid)")
 	}
-	m.solidOnce.Do(func() { m.solid = s })
-	if n := shells(len(m.V), m.T); n > 1 {
+	// Then each shell wound inward that is inside no other (so no cavity).
+	labels, n := shellLabels(len(m.V), m.T)
+	var turned []bool
+	if n > 1 {
+		turned = turnLoneInward(m, labels, n)
+		if turned != nil {
+			s = m.moments(false)
+		}
+	}
+	// Say how many shells the file wound inward, counting both turns.
+	net := 0
+	for k := range n {
+		if global != (turned != nil && turned[k]) {
+			net++
+		}
+	}
+	switch {
+	case net == n && net > 0:
+		notes = append(notes, "wound inward throughout: turned outward (the same solid)")
+	case net > 0:
+		notes = append(notes, fmt.Sprintf("%d of %d shells wound inward and inside no other shell: turned outward (solids, not cavities)", net, n))
+	}
+	if n > 1 {
 		notes = append(notes, fmt.Sprintf("%d closed shells, added up", n))
 	}
+	m.solidOnce.Do(func() { m.solid = s })
 	return m, notes, nil
 }
 
@@ -215,33 +240,6 @@ func compact(v []r3.Vec, t [][3]int32) ([]r3.Vec, [][3]int32) {
 		}
 	}
 	return out, t
-}
-
-// shells counts the connected pieces of the triangles t over n vertices
-// (union-find with path halving).
-func shells(n int, t [][3]int32) int {
-	parent := make([]int32, n)
-	for i := range parent {
-		parent[i] = int32(i)
-	}
-	find := func(x int32) int32 {
-		for parent[x] != x {
-			parent[x] = parent[parent[x]]
-			x = parent[x]
-		}
-		return x
-	}
-	count := n
-	for _, tri := range t {
-		for k := 1; k < 3; k++ {
-			a, b := find(tri[0]), find(tri[k])
-			if a != b {
-				parent[a] = b
-				count--
-			}
-		}
-	}
-	return count
 }
 
 // extent returns the largest edge of the bounding box of v.

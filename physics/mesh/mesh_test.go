@@ -356,3 +356,30 @@ func TestMesh_ConcurrentUse(t *testing.T) {
 		t.Errorf("reach %g, want %g", got, want)
 	}
 }
+
+// TestNew_OneShellInward: a file of two separate closed shells, one of them
+// wound inward (one object's normals flipped on export), is the two solids:
+// the inward shell lies inside no other, so it is no cavity and is turned
+// outward, whichever shell is the larger. The volume is the sum of the box
+// formulas (x y z); a real cavity (TestNew_TwoShells) still subtracts.
+func TestNew_OneShellInward(t *testing.T) {
+	small, big := boxTris(1, 1, 1), transform(boxTris(1, 2, 3), diag(1, 1, 1), v(5, 0, 0))
+	for _, c := range []struct {
+		name string
+		tris [][3]r3.Vec
+	}{
+		{"small inward", append(reversed(small), big...)},
+		{"big inward", append(slices.Clone(small), reversed(big)...)},
+		{"hollow, inward throughout", reversed(append(boxTris(2, 2, 2), reversed(boxTris(1, 1, 1))...))},
+	} {
+		m, notes := mustNew(t, c.tris)
+		want := 7.0
+		checkRel(t, c.name+": volume", m.Solid().Measure, want, exactTol)
+		if c.name != "hollow, inward throughout" {
+			checkRel(t, c.name+": centre x", m.Solid().Center.X, 6*5.0/7, exactTol)
+		}
+		if !strings.Contains(strings.Join(notes, "; "), "outward") {
+			t.Errorf("%s: notes %q say nothing of the turned shell", c.name, notes)
+		}
+	}
+}
