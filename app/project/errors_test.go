@@ -102,7 +102,7 @@ func TestParse_TopLevelErrors(t *testing.T) {
 		{"name type", `{"format": "propflight/v1", "name": 5}`, `pan.json: name: must be a string`, true},
 		{"prop missing", `{"format": "propflight/v1"}`, `pan.json: prop: missing: a project needs a prop with its parts`, true},
 		{"prop type", `{"format": "propflight/v1", "prop": []}`, `pan.json: prop: must be an object`, true},
-		{"prop unknown", `{"format": "propflight/v1", "prop": {"parts": [], "mass": 1}}`, `pan.json: prop.mass: unknown field`, true},
+		{"prop unknown", `{"format": "propflight/v1", "prop": {"parts": [], "mass": 1}}`, `pan.json: prop.mass: unknown field (known: parts)`, true},
 		{"parts missing", `{"format": "propflight/v1", "prop": {}}`, `pan.json: prop.parts: missing: a prop needs a list of parts`, true},
 		{"parts type", `{"format": "propflight/v1", "prop": {"parts": {}}}`, `pan.json: prop.parts: must be an array of parts`, true},
 		{"parts null", `{"format": "propflight/v1", "prop": {"parts": null}}`, `pan.json: prop.parts: must be an array of parts`, true},

@@ -104,7 +104,9 @@ func (p *parser) object(v *value, path string, known []string) (map[string]*valu
 }
 
 // suggest returns ` (did you mean "k"?)` for the known key nearest to key
-// when it is a likely typo, else "".
+// when it is a likely typo; else, for an object of at most four keys (the
+// verdict rules, the prop), ` (known: a, b, c)`, so the right name is on the
+// line; else "".
 func suggest(key string, known []string) string {
 	best, bestD := "", 3
 	for _, k := range known {
@@ -113,6 +115,9 @@ func suggest(key string, known []string) string {
 		}
 	}
 	if best == "" || bestD*2 > len(best) || len(key) > 64 {
+		if len(known) > 0 && len(known) <= 4 {
+			return " (known: " + strings.Join(known, ", ") + ")"
+		}
 		return ""
 	}
 	return fmt.Sprintf(" (did you mean %q?)", best)

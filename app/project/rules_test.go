@@ -62,7 +62,7 @@ func TestVerdictRules_BadValues(t *testing.T) {
 		{`{"symmetric_within_percent": -1}`, "r.json: verdict_rules.symmetric_within_percent: must be 0 to 50 percent"},
 		{`{"wobble_from_deg": 50}`, "r.json: verdict_rules.wobble_from_deg: must be 0 to 45 degrees"},
 		{`{"wobble_from_deg": "1"}`, "r.json: verdict_rules.wobble_from_deg: must be a number"},
-		{`{"tumble_deg": 1}`, "r.json: verdict_rules.tumble_deg: unknown field"},
+		{`{"tumble_deg": 1}`, "r.json: verdict_rules.tumble_deg: unknown field (known: symmetric_within_percent, tumble_from_deg, wobble_from_deg)"},
 		{`[]`, "r.json: verdict_rules: must be"},
 	} {
 		_, err := Parse("r.json", []byte(rulesBase+`, "verdict_rules": `+c.rules+"}"))
