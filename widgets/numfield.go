@@ -2,6 +2,7 @@ package widgets
 
 import (
 	"math"
+	"strings"
 
 	"fyne.io/fyne/v2"
 	"fyne.io/fyne/v2/widget"
@@ -51,7 +52,8 @@ type NumberField struct {
 	slider  *widget.Slider
 	entry   *numEntry
 	unit    *widget.Label
-	problem *widget.Label // the message that replaces the slider
+	problem *widget.Label // the message that replaces the slider (short form)
+	message string        // the whole message, for InputError
 
 	quiet bool   // set while the field moves its own slider
 	shown string // the text the field last wrote into the entry
@@ -167,7 +169,7 @@ func (f *NumberField) InputError() string {
 	if f.problem.Hidden {
 		return ""
 	}
-	return f.problem.Text
+	return f.message
 }
 
 // Disable stops the user from changing the value.
@@ -277,13 +279,21 @@ func (f *NumberField) show() {
 	f.setProblem("")
 }
 
-// setProblem shows msg in place of the slider, or the slider for "".
+// setProblem shows msg in place of the slider, or the slider for "". The
+// slot is narrow, so the row drops "must be " and the unit the field
+// already shows beside its entry ("at most 100" for "must be at most 100
+// turns/s"); InputError keeps the whole message.
 func (f *NumberField) setProblem(msg string) {
+	f.message = msg
 	if msg == "" {
 		f.problem.Hide()
 		f.slider.Show()
 	} else {
-		f.problem.SetText(msg)
+		short := strings.TrimPrefix(msg, "must be ")
+		if sym := f.unit.Text; sym != "" {
+			short = strings.TrimSuffix(strings.TrimSuffix(short, " "+sym), sym)
+		}
+		f.problem.SetText(short)
 		f.problem.Show()
 		f.slider.Hide()
 	}

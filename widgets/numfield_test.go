@@ -6,6 +6,7 @@ import (
 
 	"fyne.io/fyne/v2"
 	"fyne.io/fyne/v2/test"
+	"fyne.io/fyne/v2/theme"
 )
 
 // change is one onChange call.
@@ -259,5 +260,31 @@ func TestNumberField_Span_NarrowsSliderAroundValue(t *testing.T) {
 	f.SetSpan(0)
 	if v := f.valueAt(0); v != 0.001 {
 		t.Errorf("span off: slider start %v, want 0.001", v)
+	}
+}
+
+// TestNumberField_RangeMessageFits: in a row as narrow as the window's side
+// panel gives (360 px: "spin rate", slider, entry, "turns/s"), a value past
+// the range says so in the slider's place whole, not cut to "must be at
+// most …": the unit is already beside the entry, so the row shows "at most
+// 100"; InputError keeps the full sentence.
+func TestNumberField_RangeMessageFits(t *testing.T) {
+	test.NewTempApp(t)
+	f := NewNumberField("spin rate", TurnRate, 0.01, 100, nil)
+	w := test.NewTempWindow(t, f)
+	w.SetPadded(false)
+	w.Resize(fyne.NewSize(360, f.MinSize().Height))
+	f.SetValue(1.6)
+	typeIn(f, "500", fyne.KeyReturn)
+	if got := f.InputError(); got != "must be at most 100 turns/s" {
+		t.Errorf("InputError %q", got)
+	}
+	if f.problem.Text != "at most 100" {
+		t.Errorf("the row shows %q, want \"at most 100\"", f.problem.Text)
+	}
+	need := fyne.MeasureText(f.problem.Text, f.Theme().Size(theme.SizeNameText), fyne.TextStyle{}).Width +
+		2*f.Theme().Size(theme.SizeNameInnerPadding)
+	if have := f.problem.Size().Width; need > have {
+		t.Errorf("message %q needs %.0f px, has %.0f: cut off", f.problem.Text, need, have)
 	}
 }
