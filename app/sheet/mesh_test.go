@@ -1,6 +1,7 @@
 package sheet
 
 import (
+	"strings"
 	"testing"
 
 	"propflight/app/project"
@@ -44,5 +45,21 @@ func TestWrite_MeshProp(t *testing.T) {
 	path := pdfFile(t, pdf)
 	if n := pageCount(t, path); n < 3 {
 		t.Errorf("%d pages, want the summary, the poses and the table", n)
+	}
+}
+
+// TestWrite_PartsTable_MassWhole: the ladle's mass cell, mass and the
+// density it came from, is printed whole ("0.28 kg (7900 kg/m³)"), not
+// cut to "0.28 kg (7900 kg/…" by a narrow column.
+func TestWrite_PartsTable_MassWhole(t *testing.T) {
+	in := presetInput(t, "ladle")
+	pt := &in.Scene.Prop.Parts[0]
+	if pt.Mass > 0 || pt.Density <= 0 {
+		t.Fatalf("the ladle preset should give its density: mass %g, density %g", pt.Mass, pt.Density)
+	}
+	want := partMass(pt)
+	text := squash(pageText(t, pdfFile(t, render(t, in, Options{})), 1, false))
+	if !strings.Contains(text, want) {
+		t.Errorf("page 1 lacks the mass cell %q:\n%s", want, text)
 	}
 }

@@ -154,7 +154,7 @@ func (s *sheet) partsTable(x, y, w float64) float64 {
 	cols := []struct {
 		head string
 		frac float64
-	}{{"part", 0.14}, {"shape", 0.09}, {"dimensions", 0.29}, {"mass", 0.14}, {"position (prop frame)", 0.19}, {"rotation x, y, z", 0.15}}
+	}{{"part", 0.12}, {"shape", 0.08}, {"dimensions", 0.29}, {"mass", 0.17}, {"position (prop frame)", 0.19}, {"rotation x, y, z", 0.15}}
 	lh := lineH(sizeSmall) + 0.4
 	s.font("B", sizeSmall)
 	ink(p, inkSoft)
