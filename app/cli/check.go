@@ -282,7 +282,11 @@ func (s summaryWriter) verdict(f *flight) {
 		}
 	}
 	if v.HasRatio {
-		s.sub("Wobble", "%s wobbles per turn about the %s axis (spin : wobble = 1 : %s)", num(v.WobblesPerTurn), axisWords[v.Circles], num(v.WobblesPerTurn))
+		wobbles := "wobbles"
+		if num(v.WobblesPerTurn) == "1" {
+			wobbles = "wobble"
+		}
+		s.sub("Wobble", "%s %s per turn about the %s axis (spin : wobble = 1 : %s)", num(v.WobblesPerTurn), wobbles, axisWords[v.Circles], num(v.WobblesPerTurn))
 		if v.HasWobble && v.WobblesPerEulerTurn > 0 {
 			s.sub("", "against the Euler-angle spin, the turn relative to the wobble: 1 : %s", num(v.WobblesPerEulerTurn))
 		}

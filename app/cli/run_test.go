@@ -533,3 +533,16 @@ func TestRun_VerdictRules(t *testing.T) {
 		t.Errorf("without rules: motion %v, want tumble", m["motion"])
 	}
 }
+
+// TestRun_CheckSummary_OneWobble: a ratio of exactly 1 (a sphere: all
+// moments equal) reads "1 wobble per turn", not "1 wobbles per turn".
+func TestRun_CheckSummary_OneWobble(t *testing.T) {
+	path := writeFile(t, "ball.json", `{"format": "propflight/v1", "prop": {"parts": [{"shape": "sphere", "radius": 0.1, "mass": 1}]}, "throw": {"fps": 24, "release_position": [0, 1.5, 0], "release_velocity": [2, 4, 0], "spin": {"axis": "greatest", "turns_per_second": 2}}}`)
+	code, stdout, stderr := run(t, "check", path)
+	if code != 0 {
+		t.Fatalf("exit %d: %s", code, stderr)
+	}
+	if !strings.Contains(stdout, "1 wobble per turn about") || strings.Contains(stdout, "1 wobbles") {
+		t.Errorf("sphere summary:\n%s", stdout)
+	}
+}
