@@ -5,6 +5,7 @@ import (
 	"testing"
 
 	"fyne.io/fyne/v2"
+	"fyne.io/fyne/v2/canvas"
 	"fyne.io/fyne/v2/test"
 
 	"propflight/physics"
@@ -147,4 +148,27 @@ func TestTimeline_Golden(t *testing.T) {
 	long.SetFrame(599)
 	w2.Resize(fyne.NewSize(420, timelineHeight))
 	test.AssertImageMatches(t, "timeline/long_dropframe.png", w2.Canvas().Capture())
+}
+
+// TestTimeline_LandingLabel_BeatsAFlip: a flip two frames before the
+// landing (flip 4 at 25, landing at 27 of 28 frames, in the window's 690 px
+// strip) does not hide the "landing" label with its own label: the
+// release, apex and landing labels are placed first. (One frame before,
+// the flip's pennant leaves "landing" no room on either side.)
+func TestTimeline_LandingLabel_BeatsAFlip(t *testing.T) {
+	tl, w, _ := timelineWindow(t, 28)
+	w.Resize(fyne.NewSize(690, timelineHeight))
+	tl.SetFlags([]Flag{{0, FlagRelease, "release"}, {4, FlagFlip, "flip 1"}, {11, FlagApex, "apex"},
+		{19, FlagFlip, "flip 3"}, {25, FlagFlip, "flip 4"}, {27, FlagLanding, "landing"}})
+	shown := map[string]bool{}
+	for _, o := range test.WidgetRenderer(tl).Objects() {
+		if l, ok := o.(*canvas.Text); ok && l.Visible() && l.Text != "" {
+			shown[l.Text] = true
+		}
+	}
+	for _, want := range []string{"release", "apex", "landing", "flip 1", "flip 3"} {
+		if !shown[want] {
+			t.Errorf("label %q not drawn; drawn: %v", want, shown)
+		}
+	}
 }

@@ -2,7 +2,6 @@ package widgets
 
 import (
 	"image/color"
-	"math"
 	"strconv"
 
 	"fyne.io/fyne/v2"
@@ -273,7 +272,9 @@ func (r *timelineRenderer) placeReadout(s strip, size fyne.Size, fill, ink color
 // placeFlags draws each flag inside the take as a pole with a pennant, and its
 // label to the right of the flag, or to the left of the pole when the
 // right has no room before the next flag or the strip's end; a label that
-// fits neither side is left out (the flag stays).
+// fits neither side is left out (the flag stays). The labels of the
+// release, the apex and the landing are placed first, so that a crowd of
+// flips near the end never hides "landing".
 func (r *timelineRenderer) placeFlags(s strip) {
 	t := r.t
 	var in []Flag
@@ -282,8 +283,9 @@ func (r *timelineRenderer) placeFlags(s strip) {
 			in = append(in, m)
 		}
 	}
-	lastEnd := float32(math.Inf(-1)) // right edge of the last label or flag drawn
-	for i, m := range in {
+	type span struct{ lo, hi float32 }
+	var taken []span // pennants and the labels drawn, in x
+	for _, m := range in {
 		c := m.Kind.Color()
 		pole, flag := r.flag()
 		x := s.x(m.Frame)
@@ -294,7 +296,23 @@ func (r *timelineRenderer) placeFlags(s strip) {
 		flag.FillColor = c
 		flag.Move(fyne.NewPos(x, flagTop))
 		flag.Resize(fyne.NewSize(flagW, flagH))
-		if m.Label != "" {
+		taken = append(taken, span{x, x + flagW})
+	}
+	free := func(lo, hi float32, own int) bool {
+		for k, sp := range taken {
+			if k != own && lo < sp.hi+3 && hi > sp.lo-3 {
+				return false
+			}
+		}
+		return true
+	}
+	main := func(k FlagKind) bool { return k == FlagRelease || k == FlagApex || k == FlagLanding }
+	for _, first := range []bool{true, false} {
+		for i, m := range in {
+			if m.Label == "" || main(m.Kind) != first {
+				continue
+			}
+			x := s.x(m.Frame)
 			limit := s.x(t.frames-1) + stripInset // the strip's right end
 			if i+1 < len(in) {
 				limit = min(limit, s.x(in[i+1].Frame)-3)
@@ -304,15 +322,15 @@ func (r *timelineRenderer) placeFlags(s strip) {
 			if lx+sz.Width > limit {
 				lx = x - 2 - sz.Width
 			}
-			if lx >= lastEnd+3 && lx >= 0 {
-				l := r.flagLabel()
-				l.Text = m.Label
-				l.Color = c
-				l.Move(fyne.NewPos(lx, flagTop-3))
-				l.Resize(sz)
-				lastEnd = max(lastEnd, lx+sz.Width)
+			if lx < 0 || !free(lx, lx+sz.Width, i) {
+				continue
 			}
+			l := r.flagLabel()
+			l.Text = m.Label
+			l.Color = m.Kind.Color()
+			l.Move(fyne.NewPos(lx, flagTop-3))
+			l.Resize(sz)
+			taken = append(taken, span{lx, lx + sz.Width})
 		}
-		lastEnd = max(lastEnd, x+flagW)
 	}
 }
