@@ -158,17 +158,23 @@ func TestTimeline_Golden(t *testing.T) {
 func TestTimeline_LandingLabel_BeatsAFlip(t *testing.T) {
 	tl, w, _ := timelineWindow(t, 28)
 	w.Resize(fyne.NewSize(690, timelineHeight))
-	tl.SetFlags([]Flag{{0, FlagRelease, "release"}, {4, FlagFlip, "flip 1"}, {11, FlagApex, "apex"},
-		{19, FlagFlip, "flip 3"}, {25, FlagFlip, "flip 4"}, {27, FlagLanding, "landing"}})
-	shown := map[string]bool{}
-	for _, o := range test.WidgetRenderer(tl).Objects() {
-		if l, ok := o.(*canvas.Text); ok && l.Visible() && l.Text != "" {
-			shown[l.Text] = true
+	// A flip on the apex's own frame, listed before or after it, shares
+	// its pole and leaves the apex label its room.
+	for _, flip2 := range []int{0, 1} {
+		flags := []Flag{{0, FlagRelease, "release"}, {4, FlagFlip, "flip 1"}, {11, FlagApex, "apex"},
+			{19, FlagFlip, "flip 3"}, {25, FlagFlip, "flip 4"}, {27, FlagLanding, "landing"}}
+		flags = slices.Insert(flags, 2+flip2, Flag{11, FlagFlip, "flip 2"})
+		tl.SetFlags(flags)
+		shown := map[string]bool{}
+		for _, o := range test.WidgetRenderer(tl).Objects() {
+			if l, ok := o.(*canvas.Text); ok && l.Visible() && l.Text != "" {
+				shown[l.Text] = true
+			}
 		}
-	}
-	for _, want := range []string{"release", "apex", "landing", "flip 1", "flip 3"} {
-		if !shown[want] {
-			t.Errorf("label %q not drawn; drawn: %v", want, shown)
+		for _, want := range []string{"release", "apex", "landing", "flip 1", "flip 3"} {
+			if !shown[want] {
+				t.Errorf("flip 2 at index %d: label %q not drawn; drawn: %v", 2+flip2, want, shown)
+			}
 		}
 	}
 }

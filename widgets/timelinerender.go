@@ -283,7 +283,10 @@ func (r *timelineRenderer) placeFlags(s strip) {
 			in = append(in, m)
 		}
 	}
-	type span struct{ lo, hi float32 }
+	type span struct {
+		lo, hi float32
+		frame  int // a pennant's frame; -1 for a label
+	}
 	var taken []span // pennants and the labels drawn, in x
 	for _, m := range in {
 		c := m.Kind.Color()
@@ -296,11 +299,13 @@ func (r *timelineRenderer) placeFlags(s strip) {
 		flag.FillColor = c
 		flag.Move(fyne.NewPos(x, flagTop))
 		flag.Resize(fyne.NewSize(flagW, flagH))
-		taken = append(taken, span{x, x + flagW})
+		taken = append(taken, span{x, x + flagW, m.Frame})
 	}
-	free := func(lo, hi float32, own int) bool {
-		for k, sp := range taken {
-			if k != own && lo < sp.hi+3 && hi > sp.lo-3 {
+	// free: [lo, hi] keeps 3 px from every label drawn and every pennant
+	// but those of its own frame (flags sharing a frame share the pole).
+	free := func(lo, hi float32, frame int) bool {
+		for _, sp := range taken {
+			if sp.frame != frame && lo < sp.hi+3 && hi > sp.lo-3 {
 				return false
 			}
 		}
@@ -322,7 +327,7 @@ func (r *timelineRenderer) placeFlags(s strip) {
 			if lx+sz.Width > limit {
 				lx = x - 2 - sz.Width
 			}
-			if lx < 0 || !free(lx, lx+sz.Width, i) {
+			if lx < 0 || !free(lx, lx+sz.Width, m.Frame) {
 				continue
 			}
 			l := r.flagLabel()
@@ -330,7 +335,7 @@ func (r *timelineRenderer) placeFlags(s strip) {
 			l.Color = m.Kind.Color()
 			l.Move(fyne.NewPos(lx, flagTop-3))
 			l.Resize(sz)
-			taken = append(taken, span{lx, lx + sz.Width})
+			taken = append(taken, span{lx, lx + sz.Width, -1})
 		}
 	}
 }
