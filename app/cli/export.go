@@ -169,12 +169,16 @@ func writeOut(out io.Writer, cmd *Command, path string, write func(io.Writer) er
 }
 
 // writeError describes a failure to write the output path: a read-only
-// file is the user's to decide on (exit 2, with the way out); other
+// file is the user's to decide on and a folder is a mistake in -o (exit 2,
+// with the way out); other
 // failures keep their cause. The message names the output, never a
 // temporary file.
 func writeError(path string, err error) error {
 	if errors.Is(err, fsutil.ErrReadOnly) {
 		return usagef("%s: the file is read-only; give --force to replace it", path)
+	}
+	if errors.Is(err, fsutil.ErrFolder) {
+		return usagef("%s: is a folder; give -o a file name", path)
 	}
 	var pe *fs.PathError
 	if errors.As(err, &pe) && pe.Path == path {

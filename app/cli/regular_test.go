@@ -42,3 +42,18 @@ func TestRun_EmptyPathRefused(t *testing.T) {
 }
 
 func testdataBrick() string { return brick }
+
+// TestRun_OutputIsAFolder: -o naming a folder is a mistake in the command
+// line (exit 2, saying so), not a failure of the program.
+func TestRun_OutputIsAFolder(t *testing.T) {
+	dir := t.TempDir()
+	for _, args := range [][]string{
+		{"export", testdataBrick(), "--format", "csv", "-o", dir},
+		{"sheet", testdataBrick(), "-o", dir},
+	} {
+		code, _, stderr := run(t, args...)
+		if code != ExitInput || !strings.Contains(stderr, dir+": is a folder; give -o a file name") {
+			t.Errorf("%q: exit %d, stderr %q", args, code, stderr)
+		}
+	}
+}

@@ -19,6 +19,10 @@ const newFileMode fs.FileMode = 0o644
 // would replace is read-only and Options.ReplaceReadOnly is not set.
 var ErrReadOnly = errors.New("is read-only")
 
+// ErrFolder is the error WriteFile returns when the path it would write
+// is a folder.
+var ErrFolder = errors.New("is a folder")
+
 // staleAge is how old a temporary file of ours must be before a save
 // removes it as left over from a save that was killed. Younger ones may
 // belong to a save still in progress in another process.
@@ -63,6 +67,7 @@ func WriteAtomic(path string, write func(io.Writer) error) error {
 //     a file that does not exist yet creates that file.
 //   - the file is read-only: refused with an error wrapping ErrReadOnly,
 //     unless opt.ReplaceReadOnly.
+//   - path is a folder: refused with ErrFolder.
 //   - temporary files of this file left by a save that was killed
 //     (".NAME.tmp-DIGITS", over a minute old) are removed after a
 //     successful save, unless opt.KeepStale.
@@ -93,7 +98,7 @@ func WriteFile(path string, opt Options, write func(io.Writer) error) (err error
 	mode := newFileMode
 	if info, statErr := os.Stat(target); statErr == nil {
 		if info.IsDir() {
-			return errors.New("is a folder")
+			return ErrFolder
 		}
 		mode = info.Mode().Perm()
 		if !opt.ReplaceReadOnly && readOnly(target, info) {
